@@ -1,0 +1,24 @@
+import { idParamSchema, updateUserSchema } from '#shared/utils/schemas'
+
+export default defineEventHandler(async (event) => {
+  const admin = await requireRole(event, 'admin')
+  const { id } = await getValidatedRouterParams(event, idParamSchema.parse)
+  const body = await readValidatedBody(event, updateUserSchema.safeParse)
+  if (!body.success) throw validationError(body.error)
+  const change = body.data
+  if (id === admin.id && (change.disabled || (change.role && change.role !== 'admin'))) {
+    throw createError({ statusCode: 409, statusMessage: 'You cannot disable yourself or remove your own admin role' })
+  }
+
+  const user = await useDB().transaction(async (tx) => {
+    const [before] = await tx.select().from(schema.users).where(eq(schema.users.id, id)).for('update')
+    if (!before) return null
+    await tx.update(schema.users).set({ ...change, updatedAt: new Date() }).where(eq(schema.users.id, id))
+    await recordAudit(tx, { user: admin }, 'user.update', 'user', id, {
+      before: { name: before.name, role: before.role, disabled: before.disabled }, after: change,
+    })
+    return { ...before, ...change }
+  })
+  if (!user) throw createError({ statusCode: 404, statusMessage: `No user with id ${id}` })
+  return { user: { id: user.id, email: user.email, name: user.name, role: user.role, disabled: user.disabled } }
+})

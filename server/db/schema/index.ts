@@ -1,0 +1,3 @@
+// Every table of Veerline, one file per area. drizzle.config.ts and useDB() read this index.
+export * from './users'
+export * from './audit'

@@ -1,0 +1,22 @@
+const startedAt = Date.now()
+
+// Open to all (load balancers and people alike): says whether the app and its database answer.
+export default defineEventHandler(async (event) => {
+  const app = { name: 'veerline', state: 'up', uptimeS: Math.round((Date.now() - startedAt) / 1000) }
+  try {
+    const started = performance.now()
+    await Promise.race([
+      usePool().query('SELECT 1'),
+      new Promise((_, reject) => setTimeout(() => reject(new Error('no answer within 2 s')), 2000)),
+    ])
+    return { status: 'ok', app, database: { state: 'up', latencyMs: Math.round(performance.now() - started) } }
+  }
+  catch (err) {
+    setResponseStatus(event, 503)
+    return {
+      status: 'unavailable',
+      app,
+      database: { state: 'down', message: `The database does not answer: ${(err as Error).message}` },
+    }
+  }
+})

@@ -1,0 +1,35 @@
+import { execFileSync } from 'node:child_process'
+import { describe, expect, it } from 'vitest'
+import { BASE_URL } from '../support/api'
+
+function db(command: 'start' | 'stop') {
+  execFileSync('bash', ['scripts/db.sh', command], { stdio: 'pipe', env: process.env, timeout: 60_000 })
+}
+
+async function health() {
+  const res = await fetch(`${BASE_URL}/healthz`)
+  return { status: res.status, body: await res.json() }
+}
+
+describe('/healthz', () => {
+  it('is 200 with the database up, 503 with a clear message while it is down, and recovers by itself', async () => {
+    expect((await health()).status).toBe(200)
+    db('stop')
+    try {
+      const down = await health()
+      expect(down.status).toBe(503)
+      expect(down.body.database.state).toBe('down')
+      expect(down.body.database.message).toMatch(/database does not answer/)
+    }
+    finally {
+      db('start')
+    }
+    let last = await health()
+    for (let i = 0; i < 50 && last.status !== 200; i++) {
+      await new Promise(r => setTimeout(r, 200))
+      last = await health()
+    }
+    expect(last.status).toBe(200)
+    expect(last.body.database.state).toBe('up')
+  })
+})

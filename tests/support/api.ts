@@ -1,0 +1,65 @@
+// Helpers for the API suite: a tiny cookie-keeping client for the real server that scripts/test.sh started.
+export const BASE_URL = process.env.TEST_BASE_URL || 'http://127.0.0.1:3100'
+export const DEMO_PASSWORD = 'veerline-demo'
+export const DEMO = {
+  admin: 'admin@veerline.example',
+  dispatcher: 'dispatch@veerline.example',
+  pilot: 'pilot@veerline.example',
+  safety: 'safety@veerline.example',
+} as const
+
+let addressCounter = 0
+/** A distinct client address per client, so sign-in lockouts in one test do not reach another. */
+function nextAddress() {
+  addressCounter += 1
+  return `198.51.100.${(process.pid + addressCounter) % 250 + 1}`
+}
+
+export type ApiResponse<T = any> = { status: number, headers: Headers, body: T }
+
+export class ApiClient {
+  cookie = ''
+  constructor(public baseUrl = BASE_URL, public address = nextAddress()) {}
+
+  async request<T = any>(method: string, path: string, body?: unknown, headers: Record<string, string> = {}): Promise<ApiResponse<T>> {
+    const h: Record<string, string> = { 'x-forwarded-for': this.address, ...headers }
+    if (this.cookie) h.cookie = this.cookie
+    let payload: BodyInit | undefined
+    if (typeof body === 'string' || body instanceof FormData || body instanceof Blob) payload = body as BodyInit
+    else if (body !== undefined) {
+      payload = JSON.stringify(body)
+      h['content-type'] = 'application/json'
+    }
+    const res = await fetch(new URL(path, this.baseUrl), { method, headers: h, body: payload, redirect: 'manual' })
+    const set = res.headers.getSetCookie?.() ?? []
+    for (const c of set) {
+      const [pair] = c.split(';')
+      if (pair!.startsWith('nuxt-session=')) this.cookie = pair!.endsWith('=') ? '' : pair!
+    }
+    const text = await res.text()
+    let parsed: any = text
+    try {
+      parsed = text ? JSON.parse(text) : null
+    }
+    catch { /* not JSON: keep the text */ }
+    return { status: res.status, headers: res.headers, body: parsed as T }
+  }
+
+  get<T = any>(path: string, headers?: Record<string, string>) { return this.request<T>('GET', path, undefined, headers) }
+  post<T = any>(path: string, body?: unknown, headers?: Record<string, string>) { return this.request<T>('POST', path, body, headers) }
+  patch<T = any>(path: string, body?: unknown, headers?: Record<string, string>) { return this.request<T>('PATCH', path, body, headers) }
+  put<T = any>(path: string, body?: unknown, headers?: Record<string, string>) { return this.request<T>('PUT', path, body, headers) }
+  delete<T = any>(path: string, body?: unknown, headers?: Record<string, string>) { return this.request<T>('DELETE', path, body, headers) }
+
+  async signIn(email: string, password = DEMO_PASSWORD) {
+    const res = await this.post('/api/session', { email, password })
+    if (res.status !== 200) throw new Error(`sign-in of ${email} failed: ${res.status} ${JSON.stringify(res.body)}`)
+    return res
+  }
+}
+
+export async function signedIn(role: keyof typeof DEMO, baseUrl = BASE_URL) {
+  const client = new ApiClient(baseUrl)
+  await client.signIn(DEMO[role])
+  return client
+}
