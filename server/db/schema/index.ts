@@ -1,3 +1,5 @@
 // Every table of Veerline, one file per area. drizzle.config.ts and useDB() read this index.
 export * from './users'
 export * from './audit'
+export * from './airfields'
+export * from './profiles'
