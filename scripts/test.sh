@@ -36,8 +36,11 @@ cleanup() {
 }
 trap cleanup INT TERM EXIT
 
-step lint node_modules/.bin/eslint .
-step typecheck node_modules/.bin/nuxt typecheck
+# VEERLINE_QUICK=1 skips lint and type check while iterating; CI and a plain `npm test` always run them.
+if [ "${VEERLINE_QUICK:-}" != 1 ]; then
+  step lint node_modules/.bin/eslint .
+  step typecheck node_modules/.bin/nuxt typecheck
+fi
 
 mariadb_start
 app_database veerline_test fresh
@@ -47,7 +50,8 @@ standins_start
 app_serve "$VEERLINE_PORT" "$VEERLINE_DATA_DIR/server.log"
 export TEST_BASE_URL="http://$VEERLINE_HOST:$VEERLINE_PORT"
 
-step tests node_modules/.bin/vitest run
+# Extra arguments go to vitest, e.g. `npm test -- tests/api/session.test.ts`.
+step tests node_modules/.bin/vitest run "$@"
 
 cleanup
 if [ ${#failed[@]} -gt 0 ]; then
