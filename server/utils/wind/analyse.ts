@@ -52,7 +52,7 @@ export function pathChange(heightsM: ArrayLike<number>, headwindKt: ArrayLike<nu
   for (let k = 1; k < n; k++) {
     const i = order === 1 ? k : n - 1 - k
     const h = headwindKt[i]!
-    if (maxSoFar - h > loss && k > 1) {
+    if (maxSoFar - h > loss) {
       loss = maxSoFar - h
       lossFrom = maxAt
       lossTo = i

@@ -17,7 +17,7 @@ export function crosswindSideOf(crosswindKt: number): CrosswindSide {
 /** Unchecked core, for the engine's own loops. */
 export function componentsOf(directionDeg: number, speedKt: number, headingDeg: number): RunwayComponents {
   const theta = degToRad(directionDeg - headingDeg)
-  const crosswindKt = -speedKt * Math.sin(theta)
+  const crosswindKt = speedKt * Math.sin(theta)
   return { headwindKt: speedKt * Math.cos(theta), crosswindKt, crosswindSide: crosswindSideOf(crosswindKt) }
 }
 
