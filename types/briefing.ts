@@ -5,18 +5,39 @@ export type LevelPoint = { heightAglM: number, directionDeg: number, speedKt: nu
 export type EndLevel = Components & { heightAglM: number, sourceIndex: number }
 export type WindVector = { uKt: number, vKt: number, speedKt: number, directionDeg: number }
 export type LimitCheckView = {
-  kind: string, designator: string | null, value: number, limit: number, unit: string, excess: number,
-  state: 'exceeded' | 'near' | 'within', message: string
+  kind: string
+  designator: string | null
+  value: number
+  limit: number
+  unit: string
+  excess: number
+  state: 'exceeded' | 'near' | 'within'
+  message: string
 }
 export type PathChangeView = {
-  maxAirspeedLossKt: number, maxAirspeedGainKt: number, lossFromHeightM: number | null, lossToHeightM: number | null,
-  gainFromHeightM: number | null, gainToHeightM: number | null, exceedsAlertingPractice15Kt: boolean, complete: boolean
+  maxAirspeedLossKt: number
+  maxAirspeedGainKt: number
+  lossFromHeightM: number | null
+  lossToHeightM: number | null
+  gainFromHeightM: number | null
+  gainToHeightM: number | null
+  exceedsAlertingPractice15Kt: boolean
+  complete: boolean
 }
 export type ConvectiveView = { available: false, reason: string } | {
-  available: true, meanWind0to6kmKt: WindVector, bulkShear0to6kmKt: number, bunkersRight: WindVector,
-  bunkersLeft: WindVector, srh0to1kmM2s2: number, srh0to3kmM2s2: number, streamwiseShare0to500m: number
+  available: true
+  meanWind0to6kmKt: WindVector
+  bulkShear0to6kmKt: number
+  bunkersRight: WindVector
+  bunkersLeft: WindVector
+  srh0to1kmM2s2: number
+  srh0to3kmM2s2: number
+  streamwiseShare0to500m: number
 }
 export type FeetStep = {
-  heightAglFt: number, heightAglM: number, directionDeg: number, speedKt: number
+  heightAglFt: number
+  heightAglM: number
+  directionDeg: number
+  speedKt: number
   components: { designator: string, headwindKt: number, crosswindKt: number }[]
 }

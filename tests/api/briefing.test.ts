@@ -122,13 +122,13 @@ describe('GET /api/airfields/{code}/briefing', () => {
 
   it('gives components every 100 ft that agree with the 30 m grid at shared heights (0 ft = 0 m)', async () => {
     const b = (await pilot.get('/api/airfields/XHGH/briefing')).body.briefing
-    const steps = b.feetSteps as { heightAglFt: number, heightAglM: number, speedKt: number }[]
+    const steps = b.feetSteps as { heightAglFt: number, heightAglM: number, speedKt: number, directionDeg: number }[]
     expect(steps.length).toBeGreaterThan(10)
     for (const s of steps) expect(s.heightAglM).toBeCloseTo(s.heightAglFt * 0.3048, 9) // 1 ft = 0.3048 m exactly
     // Each step is linear in u, v between the grid points around it (u = -V·sin dir, v = -V·cos dir, WMO convention).
     const grid = b.grid as { heightAglM: number, uKt: number, vKt: number }[]
     expect(steps[0]!.heightAglM).toBeGreaterThanOrEqual(grid[0]!.heightAglM - 1e-9)
-    for (const s of steps as { heightAglM: number, speedKt: number, directionDeg: number }[]) {
+    for (const s of steps) {
       const j = Math.max(1, grid.findIndex(g => g.heightAglM >= s.heightAglM - 1e-9))
       const lo = grid[j - 1]!
       const hi = grid[j]!

@@ -12,9 +12,9 @@ export default defineEventHandler(async (event) => {
     const [existing] = await tx.select().from(schema.briefingReceipts)
       .where(and(eq(schema.briefingReceipts.userId, user.id), eq(schema.briefingReceipts.profileId, profileId)))
     if (existing) return false
-    const [{ id }] = await tx.insert(schema.briefingReceipts)
+    const [inserted] = await tx.insert(schema.briefingReceipts)
       .values({ userId: user.id, profileId, airfieldId: profile.airfieldId, readAt: new Date() }).$returningId()
-    await recordAudit(tx, { user }, 'briefing.read', 'profile', profileId, { receiptId: id, airfieldId: profile.airfieldId })
+    await recordAudit(tx, { user }, 'briefing.read', 'profile', profileId, { receiptId: inserted?.id, airfieldId: profile.airfieldId })
     return true
   })
   setResponseStatus(event, created ? 201 : 200)
