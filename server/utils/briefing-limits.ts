@@ -3,7 +3,8 @@ import { DEFAULT_LIMITS, type Limits } from './limits'
 export type BriefingLimits = {
   limits: Limits
   limitsFor: (designator: string) => Limits
-  source: string
+  /** 'default' here; where each figure comes from once the safety office's limit sets are in (per figure). */
+  source: string | Record<string, string>
 }
 
 /**

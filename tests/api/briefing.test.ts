@@ -61,8 +61,8 @@ describe('GET /api/airfields/{code}/briefing', () => {
           expect(got.arrival).toEqual(end.arrival)
           expect(got.departure).toEqual(end.departure)
         }
-        // The route uses the default limits until the safety office's limit sets are merged (limits.source).
-        expect(b.limits.source).toBe('default')
+        // The demo sets no limits of its own: the briefing is held against the defaults.
+        expect(b.limits.values).toEqual(DEFAULT_LIMITS)
         const checks = evaluateLimits(engine, DEFAULT_LIMITS)
         expect(b.checks).toEqual(checks)
         // Ranking: ends within their own limits first, most surface headwind first inside each group.
