@@ -1,0 +1,5 @@
+// The signed-in user's display preferences (defaults when never set).
+export default defineEventHandler(async (event) => {
+  const user = await requireUser(event)
+  return { preferences: await preferencesOf(user.id) }
+})
