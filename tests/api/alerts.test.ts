@@ -1,5 +1,5 @@
 import { spawn, type ChildProcess } from 'node:child_process'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { beforeAll, describe, expect, it } from 'vitest'
 import { ApiClient, signedIn } from '../support/api'
 import { createTestAirfield, mailTo, newUser, smtpPid, waitFor, windProfile } from '../support/alerts'
 
@@ -197,7 +197,7 @@ describe('thresholds', () => {
       const res = await (await signedIn(role)).put('/api/thresholds/organisation', { nonsense: true })
       expect(res.status).toBe(403)
     }
-    const code = await createTestAirfield({ '09': 90, 27: 270 })
+    const code = await createTestAirfield({ '09': 90, '27': 270 })
     expect((await dispatcher.put(`/api/thresholds/airfields/${code}`, body)).status).toBe(403)
 
     const tooHigh = await safety.put(`/api/thresholds/airfields/${code}`, { values: { maxCrosswindKt: 75, nearLimitMarginPct: -1 }, reason: 'x' })

@@ -62,7 +62,7 @@ describe('limits and alerts in the browser', () => {
       await admin.goto('/mailbox')
       await admin.waitForLoadState('networkidle')
       return mail.count()
-    }, { timeout: 30_000, intervals: [500, 1000] }).toBeGreaterThan(0)
+    }, { timeout: 30_000, interval: 1000 }).toBeGreaterThan(0)
     expect(await mail.first().textContent()).toContain('Limit: 18 kt')
     await screenshot(admin, 'mailbox')
     await adminCtx.close()

@@ -25,7 +25,7 @@ export default defineEventHandler(async (event) => {
   const deliveries = rows.length
     ? await useDB().select({ id: o.id, alertId: o.alertId, kind: o.kind, channel: o.channel, to: o.toAddress, userId: o.userId, state: o.state,
         attempts: o.attempts, lastError: o.lastError, nextAttemptAt: o.nextAttemptAt, sentAt: o.sentAt, sentBy: o.sentBy, createdAt: o.createdAt })
-      .from(o).where(inArray(o.alertId, rows.map(r => r.alert.id))).orderBy(asc(o.id))
+        .from(o).where(inArray(o.alertId, rows.map(r => r.alert.id))).orderBy(asc(o.id))
     : []
   return {
     alerts: rows.map(r => ({

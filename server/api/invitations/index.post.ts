@@ -15,7 +15,7 @@ export default defineEventHandler(async (event) => {
     const [existing] = await tx.select().from(schema.users).where(eq(schema.users.email, email)).for('update')
     if (existing?.passwordHash) throw createError({ statusCode: 409, statusMessage: `${email} already has an account`, data: { issues: [{ field: 'email', message: 'already has an account' }] } })
     let id = existing?.id
-    if (!id) [{ id }] = await tx.insert(schema.users).values({ email, name, role, passwordHash: null }).$returningId()
+    if (!id) id = (await tx.insert(schema.users).values({ email, name, role, passwordHash: null }).$returningId())[0]!.id
     const { expiresAt } = await issueToken(tx, 'invitation', { id: id!, email, name }, appUrl, admin)
     await recordAudit(tx, { user: admin }, existing ? 'user.reinvite' : 'user.invite', 'user', id!, { email, role })
     return { id: id!, expiresAt }

@@ -5,8 +5,16 @@ import { join, resolve } from 'node:path'
 export const mailboxFile = () => process.env.VEERLINE_MAILBOX_FILE || join(resolve(process.env.VEERLINE_DATA_DIR || '.data'), 'standins', 'mailbox.json')
 
 export interface MailboxMessage {
-  id: string, receivedAt: string, envelopeTo: string[], deliveryId: string | null, kind: string | null
-  from: string, to: string, subject: string, text: string, html: string | null
+  id: string
+  receivedAt: string
+  envelopeTo: string[]
+  deliveryId: string | null
+  kind: string | null
+  from: string
+  to: string
+  subject: string
+  text: string
+  html: string | null
 }
 
 export async function readMailbox(): Promise<MailboxMessage[]> {

@@ -1,12 +1,12 @@
 // Outgoing mail over SMTP with nodemailer. Defaults point at the local stand-in (scripts/standins/smtp.ts).
-import nodemailer from 'nodemailer'
+import nodemailer, { type Transporter } from 'nodemailer'
 
 export function smtpUrl(env: NodeJS.ProcessEnv = process.env) {
   return env.VEERLINE_SMTP_URL || `smtp://127.0.0.1:${env.VEERLINE_SMTP_PORT || 2525}`
 }
 export const mailFrom = () => process.env.VEERLINE_MAIL_FROM || 'Veerline alerts <alerts@veerline.example>'
 
-let transport: nodemailer.Transporter | undefined
+let transport: Transporter | undefined
 function useTransport() {
   if (!transport) {
     const url = new URL(smtpUrl())

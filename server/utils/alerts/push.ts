@@ -38,7 +38,7 @@ export async function sendPush(db: DB, sub: { endpoint: string, p256dh: string, 
   // Sent with fetch rather than sendNotification: the same request works for an https push service and the
   // plain-http loopback stand-in.
   const res = await fetch(details.endpoint, {
-    method: details.method, headers: details.headers as Record<string, string>, body: details.body ?? undefined,
+    method: details.method, headers: details.headers as Record<string, string>, body: details.body ? new Uint8Array(details.body) : undefined,
     signal: AbortSignal.timeout(10_000),
   })
   if (res.status === 404 || res.status === 410) throw new PushGoneError(`the push service no longer knows this subscription (${res.status})`)
