@@ -2,6 +2,7 @@ import { eq } from 'drizzle-orm'
 import type { MySql2Database } from 'drizzle-orm/mysql2'
 import * as schema from '../schema'
 import { seedUsers } from './users'
+import { seedDemoAirfields } from './demo-airfields'
 
 export type SeedDB = MySql2Database<typeof schema>
 export type SeedPart = { name: string, run: (tx: SeedDB) => Promise<void> }
@@ -9,6 +10,7 @@ export type SeedPart = { name: string, run: (tx: SeedDB) => Promise<void> }
 // Demo parts in order; each runs once per database (marked in app_meta) inside one transaction.
 const parts: SeedPart[] = [
   { name: 'users', run: seedUsers },
+  { name: 'demo-airfields', run: seedDemoAirfields },
 ]
 
 export async function seedDemo(db: SeedDB): Promise<string[]> {
