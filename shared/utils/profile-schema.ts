@@ -105,3 +105,35 @@ export function levelHeightOf(level: ProfileLevelInput): { value: number, unit: 
   if (level.heightFt !== undefined) return { value: level.heightFt, unit: 'ft' }
   return { value: level.pressureHpa ?? Number.NaN, unit: 'hPa' }
 }
+
+/** Query of GET /api/airfields/{code}/profiles. */
+export const profileListQuerySchema = z.object({
+  from: z.string().datetime({ offset: true, message: 'from must be an ISO 8601 date and time' }).optional(),
+  to: z.string().datetime({ offset: true, message: 'to must be an ISO 8601 date and time' }).optional(),
+  source: z.enum(PROFILE_SOURCES).optional(),
+  status: z.enum(['active', 'superseded', 'withdrawn']).optional(),
+  sort: z.enum(['validFrom', 'validTo', 'createdAt', 'source', 'status']).default('validFrom'),
+  order: z.enum(['asc', 'desc']).default('desc'),
+  page: z.coerce.number().int().min(1).default(1),
+  pageSize: z.coerce.number().int().min(1).max(200).default(25),
+})
+
+/** Query of GET /api/audit. */
+export const auditQuerySchema = z.object({
+  entityType: z.enum(['airfield', 'runway', 'profile', 'api-token', 'user']).optional(),
+  action: z.string().trim().max(64).optional(),
+  actor: z.string().trim().max(160).optional(),
+  q: z.string().trim().max(100).optional(),
+  from: z.string().datetime({ offset: true, message: 'from must be an ISO 8601 date and time' }).optional(),
+  to: z.string().datetime({ offset: true, message: 'to must be an ISO 8601 date and time' }).optional(),
+  page: z.coerce.number().int().min(1).default(1),
+  pageSize: z.coerce.number().int().min(1).max(200).default(50),
+})
+
+export const withdrawSchema = z.object({
+  reason: z.string({ required_error: 'Give a reason for withdrawing' }).trim().min(3, 'Give a reason for withdrawing (at least 3 characters)').max(500, 'Reason: at most 500 characters'),
+}).strict()
+
+export const tokenCreateSchema = z.object({
+  name: z.string({ required_error: 'Name is required' }).trim().min(1, 'Name is required').max(120, 'Name: at most 120 characters'),
+}).strict()
