@@ -171,15 +171,15 @@ describe('alerts: evaluation, e-mail and push', () => {
         const d = await deliveriesOf(alert!.id)
         return d.length === 12 && d.every(x => x.state === 'sent') ? d : null
       }, 45_000)
-      let received = 0
+      // Each of the 12 recipients got exactly one message, and the 12 messages carry the 12 delivery ids once each.
+      // (The stand-in's mailbox outlives test runs, so only these fresh recipients are counted.)
+      const got: string[] = []
       for (const u of users) {
         const mails = await mailTo(admin, u.email)
         expect(mails, u.email).toHaveLength(1)
-        received += mails.length
+        got.push(mails[0]!.deliveryId!)
       }
-      expect(received).toBe(12)
-      const ids = (await admin.get('/api/mailbox?limit=1000')).body.messages.map((m: { deliveryId: string }) => m.deliveryId)
-      for (const d of deliveries) expect(ids.filter((x: string) => x === String(d.id))).toHaveLength(1)
+      expect(got.sort()).toEqual(deliveries.map(d => String(d.id)).sort())
       console.log('deliveries sent by instance:', Object.entries(deliveries.reduce<Record<string, number>>((acc, d) => ({ ...acc, [d.sentBy!]: (acc[d.sentBy!] ?? 0) + 1 }), {})))
     }
     finally {
