@@ -114,6 +114,33 @@ CREATE TABLE `profiles` (
 	CONSTRAINT `profiles_id` PRIMARY KEY(`id`)
 );
 --> statement-breakpoint
+CREATE TABLE `api_tokens` (
+	`id` int AUTO_INCREMENT NOT NULL,
+	`name` varchar(120) NOT NULL,
+	`token_hash` char(64) NOT NULL,
+	`token_prefix` varchar(16) NOT NULL,
+	`created_by_user_id` int NOT NULL,
+	`created_at` datetime(3) NOT NULL DEFAULT CURRENT_TIMESTAMP(3),
+	`last_used_at` datetime(3),
+	`revoked_at` datetime(3),
+	`revoked_by_user_id` int,
+	CONSTRAINT `api_tokens_id` PRIMARY KEY(`id`),
+	CONSTRAINT `api_tokens_hash` UNIQUE(`token_hash`)
+);
+--> statement-breakpoint
+CREATE TABLE `idempotency_keys` (
+	`id` int AUTO_INCREMENT NOT NULL,
+	`scope` varchar(40) NOT NULL,
+	`idem_key` varchar(200) NOT NULL,
+	`route` varchar(200) NOT NULL,
+	`request_hash` char(64) NOT NULL,
+	`response_status` smallint NOT NULL,
+	`response_body` json NOT NULL,
+	`created_at` datetime(3) NOT NULL DEFAULT CURRENT_TIMESTAMP(3),
+	CONSTRAINT `idempotency_keys_id` PRIMARY KEY(`id`),
+	CONSTRAINT `idempotency_scope_key` UNIQUE(`scope`,`idem_key`)
+);
+--> statement-breakpoint
 ALTER TABLE `audit_log` ADD CONSTRAINT `audit_log_actor_user_id_users_id_fk` FOREIGN KEY (`actor_user_id`) REFERENCES `users`(`id`) ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE `runway_ends` ADD CONSTRAINT `runway_ends_runway_id_runways_id_fk` FOREIGN KEY (`runway_id`) REFERENCES `runways`(`id`) ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE `runway_ends` ADD CONSTRAINT `runway_ends_airfield_id_airfields_id_fk` FOREIGN KEY (`airfield_id`) REFERENCES `airfields`(`id`) ON DELETE no action ON UPDATE no action;--> statement-breakpoint
@@ -122,6 +149,8 @@ ALTER TABLE `profile_levels` ADD CONSTRAINT `profile_levels_profile_id_profiles_
 ALTER TABLE `profiles` ADD CONSTRAINT `profiles_airfield_id_airfields_id_fk` FOREIGN KEY (`airfield_id`) REFERENCES `airfields`(`id`) ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE `profiles` ADD CONSTRAINT `profiles_withdrawn_by_user_id_users_id_fk` FOREIGN KEY (`withdrawn_by_user_id`) REFERENCES `users`(`id`) ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE `profiles` ADD CONSTRAINT `profiles_filed_by_user_id_users_id_fk` FOREIGN KEY (`filed_by_user_id`) REFERENCES `users`(`id`) ON DELETE no action ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE `api_tokens` ADD CONSTRAINT `api_tokens_created_by_user_id_users_id_fk` FOREIGN KEY (`created_by_user_id`) REFERENCES `users`(`id`) ON DELETE no action ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE `api_tokens` ADD CONSTRAINT `api_tokens_revoked_by_user_id_users_id_fk` FOREIGN KEY (`revoked_by_user_id`) REFERENCES `users`(`id`) ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 CREATE INDEX `sign_in_failures_email_at` ON `sign_in_failures` (`email`,`at`);--> statement-breakpoint
 CREATE INDEX `sign_in_failures_addr_at` ON `sign_in_failures` (`client_address`,`at`);--> statement-breakpoint
 CREATE INDEX `audit_log_at` ON `audit_log` (`at`);--> statement-breakpoint
@@ -130,4 +159,5 @@ CREATE INDEX `runway_ends_runway` ON `runway_ends` (`runway_id`);--> statement-b
 CREATE INDEX `runways_airfield` ON `runways` (`airfield_id`);--> statement-breakpoint
 CREATE INDEX `profile_levels_profile` ON `profile_levels` (`profile_id`,`seq`);--> statement-breakpoint
 CREATE INDEX `profiles_airfield_valid` ON `profiles` (`airfield_id`,`valid_from`,`valid_to`);--> statement-breakpoint
-CREATE INDEX `profiles_airfield_status` ON `profiles` (`airfield_id`,`status`);
+CREATE INDEX `profiles_airfield_status` ON `profiles` (`airfield_id`,`status`);--> statement-breakpoint
+CREATE INDEX `idempotency_created` ON `idempotency_keys` (`created_at`);

@@ -8,6 +8,7 @@ export const NAV_ITEMS: NavItem[] = [
   { to: '/airfields', label: 'Airfields', roles: ['admin', 'dispatcher', 'pilot', 'safety'] },
   { to: '/safety', label: 'Limits', roles: ['admin', 'safety'] },
   { to: '/admin/users', label: 'Users', roles: ['admin'] },
+  { to: '/alerts/log', label: 'Alert log', roles: ['admin', 'safety'] }, { to: '/mailbox', label: 'Mailbox', roles: ['admin'] }, { to: '/invite', label: 'Invite', roles: ['admin'] }, { to: '/device', label: 'Device', roles: ['admin', 'dispatcher', 'pilot', 'safety'] },
 ]
 
 export function navFor(role: RoleName | undefined): NavItem[] {

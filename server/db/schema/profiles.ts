@@ -3,7 +3,9 @@ import { sql } from 'drizzle-orm'
 import { airfields } from './airfields'
 import { users } from './users'
 
-export const profileSources = ['radiosonde', 'wind-profiler', 'doppler-lidar', 'aircraft-reports', 'model-forecast', 'pilot-report', 'estimate'] as const
+import { PROFILE_SOURCES } from '../../../shared/utils/profile-schema'
+
+export const profileSources = PROFILE_SOURCES
 export type ProfileSource = typeof profileSources[number]
 export const profileStatuses = ['active', 'superseded', 'withdrawn'] as const
 

@@ -1,0 +1,9 @@
+import { airfieldCodeParamSchema } from '#shared/utils/airfield-schema'
+
+export default defineEventHandler(async (event) => {
+  await requireUser(event)
+  const { code } = await getValidatedRouterParams(event, airfieldCodeParamSchema.parse)
+  const airfield = await airfieldByCode(code)
+  if (!airfield) throw createError({ statusCode: 404, statusMessage: `No airfield with the code ${code}` })
+  return { airfield: { ...(await airfieldDetail(airfield)), profileState: await profileStateOf(airfield.id) } }
+})

@@ -1,0 +1,29 @@
+import { airfieldCodeParamSchema, airfieldUpdateSchema } from '#shared/utils/airfield-schema'
+
+export default defineEventHandler(async (event) => {
+  const user = await requireRole(event, 'dispatcher', 'admin')
+  const { code } = await getValidatedRouterParams(event, airfieldCodeParamSchema.parse)
+  const body = await readValidatedBody(event, airfieldUpdateSchema.safeParse)
+  if (!body.success) throw validationError(body.error)
+  const { elevation, ...rest } = body.data
+  const change: Record<string, unknown> = { ...rest }
+  if (elevation !== undefined) change.elevationM = rest.elevationUnit === 'ft' ? elevation * 0.3048 : elevation
+  if (rest.magVarOverrideDeg === null) change.magVarOverrideReason = null
+
+  const airfield = await useDB().transaction(async (tx) => {
+    const [before] = await tx.select().from(schema.airfields).where(eq(schema.airfields.code, code)).for('update')
+    if (!before) return null
+    if (change.magVarOverrideDeg != null && !(change.magVarOverrideReason ?? before.magVarOverrideReason)) {
+      throw createError({ statusCode: 422, statusMessage: 'Give a reason for overriding the magnetic variation', data: { issues: [{ field: 'magVarOverrideReason', message: 'Give a reason for overriding the magnetic variation' }] } })
+    }
+    await tx.update(schema.airfields).set({ ...change, updatedAt: new Date() }).where(and(eq(schema.airfields.id, before.id), eq(schema.airfields.code, code)))
+    const [after] = await tx.select().from(schema.airfields).where(eq(schema.airfields.id, before.id))
+    const keys = Object.keys(change) as (keyof typeof before)[]
+    await recordAudit(tx, { user }, 'airfield.update', 'airfield', before.id, {
+      code, before: Object.fromEntries(keys.map(k => [k, before[k]])), after: Object.fromEntries(keys.map(k => [k, after![k]])),
+    })
+    return airfieldDetail(after!, tx)
+  })
+  if (!airfield) throw createError({ statusCode: 404, statusMessage: `No airfield with the code ${code}` })
+  return { airfield }
+})

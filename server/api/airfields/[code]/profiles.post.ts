@@ -1,0 +1,47 @@
+import { z } from 'zod'
+import { airfieldCodeParamSchema } from '#shared/utils/airfield-schema'
+
+// How a person entered it, for showing it back; a feed's filing is always 'api'.
+const querySchema = z.object({ entry: z.enum(['table', 'file', 'coded', 'api']).default('api') })
+
+// Files a profile as JSON: a dispatcher's or admin's session, or a feed's API token (Authorization: Bearer).
+export default defineEventHandler(async (event) => {
+  const actor = await requireFiler(event)
+  const { code } = await getValidatedRouterParams(event, airfieldCodeParamSchema.parse)
+  const query = await getValidatedQuery(event, querySchema.safeParse)
+  if (!query.success) throw validationError(query.error)
+  const { raw, value } = await readLimitedJson(event)
+  const claim = idempotencyClaim(event, actor, raw)
+  if (claim) {
+    const first = await storedAnswer(claim)
+    if (first) {
+      setResponseStatus(event, first.status)
+      setHeader(event, 'Idempotent-Replayed', 'true')
+      return first.body
+    }
+  }
+  const airfield = await airfieldByCode(code)
+  if (!airfield) throw createError({ statusCode: 404, statusMessage: `No airfield with the code ${code}` })
+
+  try {
+    const answer = await useDB().transaction(async (tx) => {
+      const filed = await fileProfile(tx, { airfield, input: value, actor, entryMethod: actor.token ? 'api' : query.data.entry })
+      if (claim) await storeAnswer(tx, claim, 201, filed)
+      return filed
+    })
+    setResponseStatus(event, 201)
+    return answer
+  }
+  catch (err) {
+    // A twin request with the same key committed first: answer as it was answered.
+    if (claim && isDuplicateKeyError(err)) {
+      const first = await storedAnswer(claim)
+      if (first) {
+        setResponseStatus(event, first.status)
+        setHeader(event, 'Idempotent-Replayed', 'true')
+        return first.body
+      }
+    }
+    throw err
+  }
+})

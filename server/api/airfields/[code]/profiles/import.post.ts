@@ -1,0 +1,61 @@
+import { z } from 'zod'
+import { airfieldCodeParamSchema } from '#shared/utils/airfield-schema'
+import { HEIGHT_REFERENCES, PROFILE_SOURCES } from '#shared/utils/profile-schema'
+import { parseProfileCsv } from '../../../../utils/import/csv'
+import { parseProfileJson } from '../../../../utils/import/json'
+
+// A CSV or JSON file as the raw body; the profile's header fields in the query (a JSON file may carry its own).
+// mode=preview answers the parsed levels and every problem with its line and saves nothing; mode=file files
+// the whole file in one transaction, or nothing (422 naming the lines).
+const querySchema = z.object({
+  format: z.enum(['csv', 'json'], { errorMap: () => ({ message: 'format must be csv or json' }) }),
+  mode: z.enum(['preview', 'file']).default('preview'),
+  validFrom: z.string().optional(),
+  validTo: z.string().optional(),
+  source: z.enum(PROFILE_SOURCES).optional(),
+  heightReference: z.enum(HEIGHT_REFERENCES).optional(),
+  notes: z.string().max(2000).optional(),
+  fileName: z.string().max(200).optional(),
+})
+
+export default defineEventHandler(async (event) => {
+  const actor = await requireFiler(event)
+  const { code } = await getValidatedRouterParams(event, airfieldCodeParamSchema.parse)
+  const query = await getValidatedQuery(event, querySchema.safeParse)
+  if (!query.success) throw validationError(query.error)
+  const text = await readLimitedText(event)
+  const airfield = await airfieldByCode(code)
+  if (!airfield) throw createError({ statusCode: 404, statusMessage: `No airfield with the code ${code}` })
+  const { format, mode, fileName, ...given } = query.data
+  const queryHeader = Object.fromEntries(Object.entries(given).filter(([, v]) => v !== undefined && v !== ''))
+
+  const parsed = format === 'csv'
+    ? { header: {}, ...parseProfileCsv(text) }
+    : parseProfileJson(text)
+  const input = { ...queryHeader, ...parsed.header, levels: parsed.levels }
+  const lineOf = (index: number) => parsed.lines[index]
+
+  if (mode === 'preview') {
+    let issues: { field: string, message: string, line?: number, index?: number }[] = parsed.issues
+    let warnings: unknown[] = []
+    if (!issues.length) {
+      try {
+        const ends = await useDB().select().from(schema.runwayEnds).where(eq(schema.runwayEnds.airfieldId, airfield.id))
+        warnings = checkProfile(airfield, ends, input, lineOf).analysis.warnings
+      }
+      catch (err) {
+        const data = (err as { data?: { issues?: typeof issues } }).data
+        if (!data?.issues) throw err
+        issues = data.issues
+      }
+    }
+    return { levels: parsed.levels, lines: parsed.lines, header: parsed.header, issues, warnings }
+  }
+
+  if (parsed.issues.length) throw profileIssuesError(parsed.issues, `The file was not filed, nothing was saved`)
+  const filed = await useDB().transaction(tx => fileProfile(tx, {
+    airfield, input, actor, entryMethod: actor.token ? 'api' : 'file', lineOf, details: { format, fileName: fileName ?? null },
+  }))
+  setResponseStatus(event, 201)
+  return filed
+})

@@ -1,0 +1,21 @@
+import { z } from 'zod'
+
+const querySchema = z.object({
+  state: z.enum(['queued', 'sent', 'failed']).optional(),
+  kind: z.enum(['alert-raised', 'alert-cleared', 'invitation', 'password-reset']).optional(),
+  limit: z.coerce.number().int().min(1).max(1000).default(200),
+})
+
+// The outbox itself, newest first: every notice (alerts, invitations, resets) and how its delivery stands.
+export default defineEventHandler(async (event) => {
+  await requireRole(event, 'safety', 'admin')
+  const query = await getValidatedQuery(event, querySchema.safeParse)
+  if (!query.success) throw validationError(query.error)
+  const o = schema.outbox
+  const rows = await useDB().select({ id: o.id, kind: o.kind, channel: o.channel, alertId: o.alertId, userId: o.userId, to: o.toAddress,
+    subject: o.subject, state: o.state, attempts: o.attempts, lastError: o.lastError, nextAttemptAt: o.nextAttemptAt, sentAt: o.sentAt,
+    sentBy: o.sentBy, createdAt: o.createdAt }).from(o)
+    .where(and(query.data.state ? eq(o.state, query.data.state) : undefined, query.data.kind ? eq(o.kind, query.data.kind) : undefined))
+    .orderBy(desc(o.id)).limit(query.data.limit)
+  return { deliveries: rows }
+})

@@ -1,0 +1,36 @@
+import { z } from 'zod'
+
+const querySchema = z.object({
+  airfield: z.string().trim().regex(/^[A-Za-z]{4}$/, 'airfield must be a four-letter code').optional(),
+  state: z.enum(['active', 'cleared', 'superseded', 'expired']).optional(),
+  limit: z.coerce.number().int().min(1).max(500).default(100),
+})
+
+// The alert log: every alert with each of its deliveries (state, attempts, last error). Safety officers and admins.
+export default defineEventHandler(async (event) => {
+  await requireRole(event, 'safety', 'admin')
+  const query = await getValidatedQuery(event, querySchema.safeParse)
+  if (!query.success) throw validationError(query.error)
+  const a = schema.alerts
+  const airfield = query.data.airfield ? await airfieldByCode(query.data.airfield) : null
+  if (query.data.airfield && !airfield) throw createError({ statusCode: 404, statusMessage: `No airfield with the code ${query.data.airfield}` })
+  const rows = await useDB().select({ alert: a, airfieldCode: schema.airfields.code, profile: { validFrom: schema.profiles.validFrom, validTo: schema.profiles.validTo } })
+    .from(a)
+    .innerJoin(schema.airfields, eq(schema.airfields.id, a.airfieldId))
+    .innerJoin(schema.profiles, eq(schema.profiles.id, a.profileId))
+    .where(and(airfield ? eq(a.airfieldId, airfield.id) : undefined, query.data.state ? eq(a.state, query.data.state) : undefined))
+    .orderBy(desc(a.id))
+    .limit(query.data.limit)
+  const o = schema.outbox
+  const deliveries = rows.length
+    ? await useDB().select({ id: o.id, alertId: o.alertId, kind: o.kind, channel: o.channel, to: o.toAddress, userId: o.userId, state: o.state,
+        attempts: o.attempts, lastError: o.lastError, nextAttemptAt: o.nextAttemptAt, sentAt: o.sentAt, sentBy: o.sentBy, createdAt: o.createdAt })
+        .from(o).where(inArray(o.alertId, rows.map(r => r.alert.id))).orderBy(asc(o.id))
+    : []
+  return {
+    alerts: rows.map(r => ({
+      ...r.alert, airfieldCode: r.airfieldCode, validFrom: r.profile.validFrom, validTo: r.profile.validTo,
+      deliveries: deliveries.filter(d => d.alertId === r.alert.id),
+    })),
+  }
+})

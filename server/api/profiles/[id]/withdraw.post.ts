@@ -1,0 +1,28 @@
+import { idParamSchema } from '#shared/utils/schemas'
+import { withdrawSchema } from '#shared/utils/profile-schema'
+
+// Withdraws an active profile with a reason; it stays, marked. Listeners hear of it in the same transaction.
+export default defineEventHandler(async (event) => {
+  const user = await requireRole(event, 'dispatcher', 'admin')
+  const { id } = await getValidatedRouterParams(event, idParamSchema.parse)
+  const body = await readValidatedBody(event, withdrawSchema.safeParse)
+  if (!body.success) throw validationError(body.error)
+  const p = schema.profiles
+  const result = await useDB().transaction(async (tx) => {
+    const [row] = await tx.select().from(p).where(eq(p.id, id)).for('update')
+    if (!row) return { missing: true as const }
+    if (row.status !== 'active') return { status: row.status }
+    const at = new Date()
+    await tx.update(p).set({ status: 'withdrawn', withdrawnAt: at, withdrawnReason: body.data.reason, withdrawnByUserId: user.id })
+      .where(and(eq(p.id, id), eq(p.status, 'active')))
+    await recordAudit(tx, { user }, 'profile.withdraw', 'profile', id, { reason: body.data.reason })
+    await emitProfileChange(tx, { kind: 'withdrawn', airfieldId: row.airfieldId, profileId: id, actorUserId: user.id })
+    const [after] = await tx.select({ profile: p, code: schema.airfields.code }).from(p)
+      .innerJoin(schema.airfields, eq(schema.airfields.id, p.airfieldId)).where(eq(p.id, id))
+    const levels = await tx.select().from(schema.profileLevels).where(eq(schema.profileLevels.profileId, id)).orderBy(asc(schema.profileLevels.seq))
+    return { profile: publicProfile(after!.profile, after!.code, levels) }
+  })
+  if ('missing' in result) throw createError({ statusCode: 404, statusMessage: `No profile ${id}` })
+  if ('status' in result) throw createError({ statusCode: 409, statusMessage: `Profile ${id} is ${result.status}; only an active profile can be withdrawn` })
+  return { profile: result.profile }
+})

@@ -1,0 +1,7 @@
+import { vapidKeys } from '../../utils/alerts/push'
+
+// The VAPID public key a browser needs for pushManager.subscribe({ applicationServerKey }).
+export default defineEventHandler(async (event) => {
+  await requireUser(event)
+  return { publicKey: (await vapidKeys(useDB())).publicKey }
+})

@@ -1,0 +1,20 @@
+import { z } from 'zod'
+import { airfieldCodeParamSchema } from '#shared/utils/airfield-schema'
+
+const bodySchema = z.object({
+  email: z.boolean({ required_error: 'email is required (true or false)' }),
+  push: z.boolean({ required_error: 'push is required (true or false)' }),
+})
+
+// Follows an airfield (or changes the channels). The in-app inbox always receives its alerts.
+export default defineEventHandler(async (event) => {
+  const user = await requireUser(event)
+  const { code } = await getValidatedRouterParams(event, airfieldCodeParamSchema.parse)
+  const body = await readValidatedBody(event, bodySchema.safeParse)
+  if (!body.success) throw validationError(body.error)
+  const airfield = await airfieldByCode(code)
+  if (!airfield) throw createError({ statusCode: 404, statusMessage: `No airfield with the code ${code}` })
+  await useDB().insert(schema.alertSubscriptions).values({ userId: user.id, airfieldId: airfield.id, ...body.data })
+    .onDuplicateKeyUpdate({ set: body.data })
+  return { airfieldCode: airfield.code, ...body.data }
+})

@@ -1,0 +1,26 @@
+import { z } from 'zod'
+import { airfieldCodeParamSchema } from '#shared/utils/airfield-schema'
+import { limitChangeSchema } from '../../../utils/alerts/limit-sets'
+import { saveLimitSet } from '../../../utils/alerts/threshold-change'
+
+const bodySchema = limitChangeSchema.extend({
+  // Set to override one runway end only; omit for the whole airfield.
+  designator: z.string().trim().toUpperCase().regex(/^(0[1-9]|[12]\d|3[0-6])[LCR]?$/, 'Runway end must be a designator such as 18 or 09L').optional(),
+})
+
+// An airfield's override (or one runway end's). Null for a figure means "inherit".
+export default defineEventHandler(async (event) => {
+  const user = await requireRole(event, 'safety', 'admin')
+  const { code } = await getValidatedRouterParams(event, airfieldCodeParamSchema.parse)
+  const body = await readValidatedBody(event, bodySchema.safeParse)
+  if (!body.success) throw validationError(body.error, 'The limits were not changed')
+  const airfield = await airfieldByCode(code)
+  if (!airfield) throw createError({ statusCode: 404, statusMessage: `No airfield with the code ${code}` })
+  const designator = body.data.designator ?? null
+  if (designator) {
+    const [end] = await useDB().select({ id: schema.runwayEnds.id }).from(schema.runwayEnds)
+      .where(and(eq(schema.runwayEnds.airfieldId, airfield.id), eq(schema.runwayEnds.designator, designator)))
+    if (!end) throw createError({ statusCode: 422, statusMessage: `${code} has no runway end ${designator}`, data: { issues: [{ field: 'designator', message: `${code} has no runway end ${designator}` }] } })
+  }
+  return saveLimitSet(useDB(), user, { airfieldId: airfield.id, designator }, body.data.values, body.data.reason)
+})

@@ -1,0 +1,27 @@
+import { z } from 'zod'
+
+const querySchema = z.object({ airfield: z.string().trim().regex(/^[A-Za-z]{4}$/, 'airfield must be a four-letter code').optional(), limit: z.coerce.number().int().min(1).max(500).default(100) })
+
+// Who changed which limits when, why, and from what to what.
+export default defineEventHandler(async (event) => {
+  await requireRole(event, 'safety', 'admin')
+  const query = await getValidatedQuery(event, querySchema.safeParse)
+  if (!query.success) throw validationError(query.error)
+  const c = schema.thresholdChanges
+  const airfield = query.data.airfield ? await airfieldByCode(query.data.airfield) : null
+  if (query.data.airfield && !airfield) throw createError({ statusCode: 404, statusMessage: `No airfield with the code ${query.data.airfield}` })
+  const rows = await useDB().select({ change: c, by: { name: schema.users.name, email: schema.users.email }, airfieldCode: schema.airfields.code })
+    .from(c)
+    .innerJoin(schema.users, eq(schema.users.id, c.changedByUserId))
+    .leftJoin(schema.airfields, eq(schema.airfields.id, c.airfieldId))
+    .where(airfield ? eq(c.airfieldId, airfield.id) : undefined)
+    .orderBy(desc(c.changedAt), desc(c.id))
+    .limit(query.data.limit)
+  return {
+    changes: rows.map(r => ({
+      id: r.change.id, scope: r.change.airfieldId == null ? 'organisation' : r.change.designator ? 'runway end' : 'airfield',
+      airfieldCode: r.airfieldCode, designator: r.change.designator, changedAt: r.change.changedAt.toISOString(),
+      changedBy: r.by, reason: r.change.reason, oldValues: r.change.oldValues, newValues: r.change.newValues,
+    })),
+  }
+})

@@ -1,0 +1,31 @@
+import { windPreviewSchema } from '#shared/utils/profile-schema'
+import { analyseProfile, WindValidationError } from '../../utils/wind'
+
+// Runs the wind engine on levels without saving anything: for the entry form's live preview and for other systems.
+export default defineEventHandler(async (event) => {
+  if (getHeader(event, 'authorization') !== undefined) await requireFiler(event)
+  else await requireUser(event)
+  const body = await readLimitedJson(event)
+  const parsed = windPreviewSchema.safeParse(body.value)
+  if (!parsed.success) throw zodProfileError(parsed.error)
+  const { levels, heightReference, airfield: code, runwayEnds, elevationM } = parsed.data
+  let input
+  let declination = null
+  if (code) {
+    const airfield = await airfieldByCode(code)
+    if (!airfield) throw createError({ statusCode: 404, statusMessage: `No airfield with the code ${code}` })
+    const ends = await useDB().select().from(schema.runwayEnds).where(eq(schema.runwayEnds.airfieldId, airfield.id))
+    declination = declinationToday(airfield)
+    input = { levels, heightReference, elevationM: airfield.elevationM, runwayEnds: runwayEndInputsOf(ends, declination?.declinationDeg ?? null) }
+  }
+  else {
+    input = { levels, heightReference, elevationM, runwayEnds: runwayEnds ?? [] }
+  }
+  try {
+    return { analysis: analyseProfile(input), declination }
+  }
+  catch (err) {
+    if (err instanceof WindValidationError) throw profileIssuesError(withLevelPlaces(err.issues), 'The levels cannot be analysed')
+    throw err
+  }
+})

@@ -1,0 +1,95 @@
+import { z } from 'zod'
+
+// Airfields and runways: shared by the API and the forms.
+
+export const AIRFIELD_CODE_RE = /^[A-Za-z]{4}$/
+export const airfieldCodeSchema = z.string({ required_error: 'Code is required' }).trim()
+  .regex(AIRFIELD_CODE_RE, 'Code must be four letters, e.g. XVAL').transform(c => c.toUpperCase())
+export const airfieldCodeParamSchema = z.object({ code: airfieldCodeSchema })
+
+const deg = (label: string, limit: number) => z.number({ required_error: `${label} is required`, invalid_type_error: `${label} must be a number` })
+  .finite().min(-limit, `${label} must be from -${limit} to ${limit}°`).max(limit, `${label} must be from -${limit} to ${limit}°`)
+
+const airfieldShape = {
+  code: airfieldCodeSchema,
+  name: z.string({ required_error: 'Name is required' }).trim().min(1, 'Name is required').max(120, 'Name: at most 120 characters'),
+  latitudeDeg: deg('Latitude', 90),
+  longitudeDeg: deg('Longitude', 180),
+  elevation: z.number({ required_error: 'Elevation is required', invalid_type_error: 'Elevation must be a number' }).finite(),
+  elevationUnit: z.enum(['ft', 'm'], { errorMap: () => ({ message: 'Elevation unit must be ft or m' }) }),
+  magVarOverrideDeg: deg('Magnetic variation', 180).nullable().optional(),
+  magVarOverrideReason: z.string().trim().max(255, 'Reason: at most 255 characters').nullable().optional(),
+  notes: z.string().max(4000, 'Notes: at most 4000 characters').nullable().optional(),
+}
+
+type AirfieldFields = { elevation?: number, elevationUnit?: 'ft' | 'm', magVarOverrideDeg?: number | null, magVarOverrideReason?: string | null }
+function checkAirfield(a: AirfieldFields, ctx: z.RefinementCtx) {
+  if (a.elevation !== undefined && a.elevationUnit !== undefined) {
+    const m = a.elevationUnit === 'ft' ? a.elevation * 0.3048 : a.elevation
+    if (m < -500 || m > 9000) ctx.addIssue({ code: z.ZodIssueCode.custom, path: ['elevation'], message: 'Elevation must be from -500 to 9000 m (-1640 to 29,527 ft)' })
+  }
+  if (a.magVarOverrideDeg != null && !a.magVarOverrideReason?.trim()) {
+    ctx.addIssue({ code: z.ZodIssueCode.custom, path: ['magVarOverrideReason'], message: 'Give a reason for overriding the magnetic variation' })
+  }
+}
+
+export const airfieldCreateSchema = z.object(airfieldShape).strict().superRefine(checkAirfield)
+export const airfieldUpdateSchema = z.object(airfieldShape).partial().omit({ code: true }).strict()
+  .superRefine((a, ctx) => {
+    if (Object.keys(a).length === 0) ctx.addIssue({ code: z.ZodIssueCode.custom, path: [], message: 'Nothing to change' })
+    if ((a.elevation === undefined) !== (a.elevationUnit === undefined)) ctx.addIssue({ code: z.ZodIssueCode.custom, path: ['elevationUnit'], message: 'Give the elevation with its unit' })
+    checkAirfield(a, ctx)
+  })
+export type AirfieldCreate = z.infer<typeof airfieldCreateSchema>
+
+export const DESIGNATOR_RE = /^(0[1-9]|[12]\d|3[0-6])([LCR])?$/
+
+/**
+ * The two ends of one runway: numbers 18 apart (designator = magnetic azimuth / 10, FAA AC 150/5340-1),
+ * L opposite R, C opposite C, no letter opposite no letter. Returns a message, or null when they pair.
+ */
+export function designatorPairProblem(a: string, b: string): string | null {
+  const ma = DESIGNATOR_RE.exec(a.toUpperCase())
+  const mb = DESIGNATOR_RE.exec(b.toUpperCase())
+  if (!ma || !mb) return 'Designators must be 01 to 36 with an optional L, C or R'
+  const na = Number(ma[1])
+  const nb = Number(mb[1])
+  if (Math.abs(na - nb) !== 18) return `${a} and ${b} are not the two ends of one runway: their numbers must be 18 apart (e.g. 09 and 27)`
+  const opposite: Record<string, string> = { 'L': 'R', 'R': 'L', 'C': 'C', '': '' }
+  if (opposite[ma[2] ?? ''] !== (mb[2] ?? '')) return `${a} and ${b} do not pair: L is opposite R, C opposite C, and a plain number opposite a plain number`
+  return null
+}
+
+const endSchema = z.object({
+  designator: z.string({ required_error: 'Designator is required' }).trim().toUpperCase()
+    .regex(DESIGNATOR_RE, 'Designator must be 01 to 36 with an optional L, C or R'),
+  thresholdLatDeg: deg('Threshold latitude', 90).nullable().optional(),
+  thresholdLonDeg: deg('Threshold longitude', 180).nullable().optional(),
+  thresholdElevationM: z.number().finite().min(-500, 'Threshold elevation must be from -500 to 9000 m').max(9000, 'Threshold elevation must be from -500 to 9000 m').nullable().optional(),
+  // Only where the threshold coordinates are unknown.
+  trueHeadingDeg: z.number({ invalid_type_error: 'True heading must be a number' }).finite().gt(0, 'True heading must be above 0 and at most 360°').max(360, 'True heading must be above 0 and at most 360°').nullable().optional(),
+}).strict()
+
+export const runwaySchema = z.object({
+  lengthM: z.number().finite().positive('Length must be above 0 m').max(8000, 'Length must be at most 8000 m').nullable().optional(),
+  ends: z.tuple([endSchema, endSchema], { errorMap: () => ({ message: 'A runway has exactly two ends' }) }),
+}).strict().superRefine((r, ctx) => {
+  const [a, b] = r.ends
+  const problem = designatorPairProblem(a.designator, b.designator)
+  if (problem) ctx.addIssue({ code: z.ZodIssueCode.custom, path: ['ends', 1, 'designator'], message: problem })
+  const hasCoords = r.ends.map(e => e.thresholdLatDeg != null && e.thresholdLonDeg != null)
+  r.ends.forEach((e, i) => {
+    if ((e.thresholdLatDeg == null) !== (e.thresholdLonDeg == null)) {
+      ctx.addIssue({ code: z.ZodIssueCode.custom, path: ['ends', i, e.thresholdLatDeg == null ? 'thresholdLatDeg' : 'thresholdLonDeg'], message: 'Give both threshold latitude and longitude, or neither' })
+    }
+  })
+  if (!(hasCoords[0] && hasCoords[1])) {
+    r.ends.forEach((e, i) => {
+      if (e.trueHeadingDeg == null) ctx.addIssue({ code: z.ZodIssueCode.custom, path: ['ends', i, 'trueHeadingDeg'], message: 'Without both thresholds\' coordinates, enter the true heading' })
+    })
+  }
+  else if (a.thresholdLatDeg === b.thresholdLatDeg && a.thresholdLonDeg === b.thresholdLonDeg) {
+    ctx.addIssue({ code: z.ZodIssueCode.custom, path: ['ends', 1, 'thresholdLatDeg'], message: 'The two thresholds are at the same place' })
+  }
+})
+export type RunwayInput = z.infer<typeof runwaySchema>

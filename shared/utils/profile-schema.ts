@@ -1,0 +1,139 @@
+import { z } from 'zod'
+
+// The public profile JSON shape (README "Profile JSON"), shared by the API, the import parsers and the entry form.
+// The wind engine's normaliseProfile stays the authority on whole-profile rules (ground, duplicates, surface gust).
+
+export const PROFILE_SOURCES = ['radiosonde', 'wind-profiler', 'doppler-lidar', 'aircraft-reports', 'model-forecast', 'pilot-report', 'estimate'] as const
+export type ProfileSourceName = typeof PROFILE_SOURCES[number]
+export const PROFILE_SOURCE_LABELS: Record<ProfileSourceName, string> = {
+  'radiosonde': 'Radiosonde',
+  'wind-profiler': 'Wind profiler',
+  'doppler-lidar': 'Doppler lidar',
+  'aircraft-reports': 'Aircraft reports',
+  'model-forecast': 'Model forecast',
+  'pilot-report': 'Pilot report',
+  'estimate': 'Estimate',
+}
+export const HEIGHT_REFERENCES = ['AGL', 'MSL'] as const
+export const PROFILE_ENTRY_METHODS = ['table', 'file', 'coded', 'api'] as const
+export type ProfileEntryMethod = typeof PROFILE_ENTRY_METHODS[number]
+
+export const PROFILE_MAX_LEVELS = 5000
+export const PROFILE_MAX_BYTES = 2 * 1024 * 1024
+// A profile describes hours, not weeks: a longer validity is almost surely a typing slip.
+export const PROFILE_MAX_VALIDITY_H = 72
+export const PROFILE_MAX_SPEED_KT = 250
+const MPS_PER_KT = 1852 / 3600
+const MAX_HEIGHT_M = 29000
+
+const num = (label: string) => z.number({ required_error: `${label} is required`, invalid_type_error: `${label} must be a number` }).finite(`${label} must be a finite number`)
+
+export const LEVEL_HEIGHT_KEYS = ['heightM', 'heightFt', 'pressureHpa'] as const
+export const LEVEL_SPEED_KEYS = ['speedKt', 'speedMps'] as const
+export const LEVEL_GUST_KEYS = ['gustKt', 'gustMps'] as const
+
+/** One level: exactly one of heightM | heightFt | pressureHpa, directionDeg, exactly one of speedKt | speedMps, an optional gust. */
+export const profileLevelSchema = z.object({
+  heightM: num('Height').min(-500, 'Height must be -500 m or more').max(MAX_HEIGHT_M, `Height must be at most ${MAX_HEIGHT_M} m`).optional(),
+  heightFt: num('Height').min(-1640, 'Height must be -1640 ft or more').max(MAX_HEIGHT_M / 0.3048, 'Height must be at most 95,000 ft').optional(),
+  pressureHpa: num('Pressure').gt(0, 'Pressure must be above 0 hPa').max(1100, 'Pressure must be at most 1100 hPa').optional(),
+  directionDeg: num('Direction').min(0, 'Direction must be 0 to 360°').max(360, 'Direction must be 0 to 360°'),
+  speedKt: num('Speed').min(0, 'Speed must be 0 or more').max(PROFILE_MAX_SPEED_KT, `Speed must be at most ${PROFILE_MAX_SPEED_KT} kt`).optional(),
+  speedMps: num('Speed').min(0, 'Speed must be 0 or more').max(PROFILE_MAX_SPEED_KT * MPS_PER_KT, 'Speed must be at most 128 m/s').optional(),
+  gustKt: num('Gust').min(0, 'Gust must be 0 or more').max(PROFILE_MAX_SPEED_KT, `Gust must be at most ${PROFILE_MAX_SPEED_KT} kt`).optional(),
+  gustMps: num('Gust').min(0, 'Gust must be 0 or more').max(PROFILE_MAX_SPEED_KT * MPS_PER_KT, 'Gust must be at most 128 m/s').optional(),
+}).strict().superRefine((level, ctx) => {
+  const given = (keys: readonly (keyof typeof level)[]) => keys.filter(k => level[k] !== undefined)
+  const heights = given(LEVEL_HEIGHT_KEYS)
+  if (heights.length !== 1) ctx.addIssue({ code: z.ZodIssueCode.custom, path: [heights[1] ?? 'heightM'], message: heights.length ? `Give one height, not ${heights.join(' and ')}` : 'Height is required (heightM, heightFt or pressureHpa)' })
+  const speeds = given(LEVEL_SPEED_KEYS)
+  if (speeds.length !== 1) ctx.addIssue({ code: z.ZodIssueCode.custom, path: [speeds[1] ?? 'speedKt'], message: speeds.length ? `Give one speed, not ${speeds.join(' and ')}` : 'Speed is required (speedKt or speedMps)' })
+  const gusts = given(LEVEL_GUST_KEYS)
+  if (gusts.length > 1) ctx.addIssue({ code: z.ZodIssueCode.custom, path: [gusts[1]!], message: 'Give at most one gust' })
+  const speedKt = level.speedKt ?? (level.speedMps === undefined ? undefined : level.speedMps / MPS_PER_KT)
+  const gustKt = level.gustKt ?? (level.gustMps === undefined ? undefined : level.gustMps / MPS_PER_KT)
+  if (speedKt !== undefined && gustKt !== undefined && gustKt < speedKt) ctx.addIssue({ code: z.ZodIssueCode.custom, path: [gusts[0]!], message: 'Gust must not be below the mean speed' })
+})
+export type ProfileLevelInput = z.infer<typeof profileLevelSchema>
+
+const utcInstant = (label: string) => z.string({ required_error: `${label} is required` })
+  .datetime({ offset: true, message: `${label} must be an ISO 8601 date and time, e.g. 2026-05-01T06:00:00Z` })
+
+export const profileLevelsSchema = z.array(profileLevelSchema, { required_error: 'levels is required' })
+  .min(2, 'At least two levels are needed').max(PROFILE_MAX_LEVELS, `At most ${PROFILE_MAX_LEVELS} levels`)
+
+const profileHeaderShape = {
+  validFrom: utcInstant('Valid from'),
+  validTo: utcInstant('Valid to'),
+  source: z.enum(PROFILE_SOURCES, { errorMap: () => ({ message: `Source must be one of ${PROFILE_SOURCES.join(', ')}` }) }),
+  heightReference: z.enum(HEIGHT_REFERENCES, { errorMap: () => ({ message: 'Height reference must be AGL or MSL' }) }),
+  notes: z.string().max(2000, 'Notes: at most 2000 characters').optional(),
+}
+
+function checkValidity(p: { validFrom: string, validTo: string }, ctx: z.RefinementCtx) {
+  const from = Date.parse(p.validFrom)
+  const to = Date.parse(p.validTo)
+  if (!(to > from)) ctx.addIssue({ code: z.ZodIssueCode.custom, path: ['validTo'], message: 'Valid to must be after valid from' })
+  else if (to - from > PROFILE_MAX_VALIDITY_H * 3600_000) ctx.addIssue({ code: z.ZodIssueCode.custom, path: ['validTo'], message: `A profile may be valid for at most ${PROFILE_MAX_VALIDITY_H} hours` })
+}
+
+/** The header fields of a profile (the entry form validates these apart from the level table). */
+export const profileHeaderSchema = z.object(profileHeaderShape).strict().superRefine(checkValidity)
+
+/** A whole profile as filed through the API. */
+export const profileInputSchema = z.object({ ...profileHeaderShape, levels: profileLevelsSchema }).strict().superRefine(checkValidity)
+export type ProfileInput = z.infer<typeof profileInputSchema>
+
+/** Body of POST /api/wind/preview: the levels with an airfield code, or runway ends and an elevation. */
+export const windPreviewSchema = z.object({
+  levels: profileLevelsSchema,
+  heightReference: z.enum(HEIGHT_REFERENCES, { errorMap: () => ({ message: 'Height reference must be AGL or MSL' }) }),
+  airfield: z.string().trim().regex(/^[A-Za-z]{4}$/, 'Airfield must be a four-letter code').optional(),
+  runwayEnds: z.array(z.object({
+    designator: z.string().trim().regex(/^(0[1-9]|[12]\d|3[0-6])[LCR]?$/, 'Designator must be 01 to 36 with an optional L, C or R'),
+    trueHeadingDeg: num('True heading').min(0).max(360),
+  }).strict()).max(64).optional(),
+  elevationM: num('Elevation').min(-500).max(9000).optional(),
+}).strict().superRefine((p, ctx) => {
+  if (p.airfield && p.runwayEnds) ctx.addIssue({ code: z.ZodIssueCode.custom, path: ['airfield'], message: 'Give an airfield or runwayEnds, not both' })
+  if (!p.airfield && p.heightReference === 'MSL' && p.elevationM === undefined) ctx.addIssue({ code: z.ZodIssueCode.custom, path: ['elevationM'], message: 'MSL heights need elevationM (or an airfield)' })
+})
+
+/** Turns a level's height into the unit-tagged pair the table shows. */
+export function levelHeightOf(level: ProfileLevelInput): { value: number, unit: 'm' | 'ft' | 'hPa' } {
+  if (level.heightM !== undefined) return { value: level.heightM, unit: 'm' }
+  if (level.heightFt !== undefined) return { value: level.heightFt, unit: 'ft' }
+  return { value: level.pressureHpa ?? Number.NaN, unit: 'hPa' }
+}
+
+/** Query of GET /api/airfields/{code}/profiles. */
+export const profileListQuerySchema = z.object({
+  from: z.string().datetime({ offset: true, message: 'from must be an ISO 8601 date and time' }).optional(),
+  to: z.string().datetime({ offset: true, message: 'to must be an ISO 8601 date and time' }).optional(),
+  source: z.enum(PROFILE_SOURCES).optional(),
+  status: z.enum(['active', 'superseded', 'withdrawn']).optional(),
+  sort: z.enum(['validFrom', 'validTo', 'createdAt', 'source', 'status']).default('validFrom'),
+  order: z.enum(['asc', 'desc']).default('desc'),
+  page: z.coerce.number().int().min(1).default(1),
+  pageSize: z.coerce.number().int().min(1).max(200).default(25),
+})
+
+/** Query of GET /api/audit. */
+export const auditQuerySchema = z.object({
+  entityType: z.enum(['airfield', 'runway', 'profile', 'api-token', 'user']).optional(),
+  action: z.string().trim().max(64).optional(),
+  actor: z.string().trim().max(160).optional(),
+  q: z.string().trim().max(100).optional(),
+  from: z.string().datetime({ offset: true, message: 'from must be an ISO 8601 date and time' }).optional(),
+  to: z.string().datetime({ offset: true, message: 'to must be an ISO 8601 date and time' }).optional(),
+  page: z.coerce.number().int().min(1).default(1),
+  pageSize: z.coerce.number().int().min(1).max(200).default(50),
+})
+
+export const withdrawSchema = z.object({
+  reason: z.string({ required_error: 'Give a reason for withdrawing' }).trim().min(3, 'Give a reason for withdrawing (at least 3 characters)').max(500, 'Reason: at most 500 characters'),
+}).strict()
+
+export const tokenCreateSchema = z.object({
+  name: z.string({ required_error: 'Name is required' }).trim().min(1, 'Name is required').max(120, 'Name: at most 120 characters'),
+}).strict()

@@ -1,0 +1,74 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { launchBrowser, newContext, screenshot, signInPage, type Browser } from '../support/browser'
+import { signedIn } from '../support/api'
+import { createTestAirfield, windProfile } from '../support/alerts'
+
+let browser: Browser
+beforeAll(async () => {
+  browser = await launchBrowser()
+})
+afterAll(async () => {
+  await browser?.close()
+})
+
+describe('limits and alerts in the browser', () => {
+  it('a safety officer lowers a crosswind limit with a reason; the alert reaches the pilot\'s inbox and the admin\'s mailbox', async () => {
+    // Runway 18/36, wind 220° at 30 kt: 19.28 kt crosswind (FAA crosswind chart worked example), within the default 20 kt.
+    const code = await createTestAirfield({ 18: 180, 36: 360 }, 'Browser alert field')
+    const safetyApi = await signedIn('safety')
+    await safetyApi.put(`/api/thresholds/airfields/${code}`, { values: { maxTailwindKt: 30 }, reason: 'Test field: tailwind out of the way' })
+    await safetyApi.put(`/api/thresholds/airfields/${code}`, { designator: '36', values: { maxCrosswindKt: 25 }, reason: 'Test field: runway 36 stays clear' })
+    const pilotApi = await signedIn('pilot')
+    expect((await pilotApi.put(`/api/subscriptions/${code}`, { email: true, push: false })).status).toBe(200)
+    const filed = await (await signedIn('dispatcher')).post(`/api/airfields/${code}/profiles`, windProfile(220, 30))
+    expect(filed.status).toBe(201)
+    // The stand-in's mailbox outlives test runs: count what is already there for this code.
+    const adminApi = await signedIn('admin')
+    const mailsBefore = (await adminApi.get('/api/mailbox?to=pilot@veerline.example&limit=1000')).body.messages
+      .filter((m: { subject: string }) => m.subject.includes(`${code} runway 18`)).length
+    const before = (await pilotApi.get('/api/alerts/inbox')).body.items.filter((i: { airfieldCode: string }) => i.airfieldCode === code)
+    expect(before).toHaveLength(0)
+
+    const { context: safetyCtx } = await newContext(browser)
+    const safety = await safetyCtx.newPage()
+    await signInPage(safety, 'safety')
+    await safety.waitForURL(u => u.pathname === '/safety')
+    await safety.waitForLoadState('networkidle')
+    await safety.selectOption('#limits-airfield', code)
+    const form = safety.locator('[data-test="limits-airfield-form"]')
+    await form.locator('input[name="maxCrosswindKt"]').fill('18')
+    await form.locator('input[name="reason"]').fill('Gusty season: lower crosswind limit for the light fleet')
+    await form.locator('button[type=submit]').click()
+    await expect.poll(() => safety.locator('[data-test="limits-history"]').textContent(), { timeout: 15_000 })
+      .toContain('Gusty season: lower crosswind limit for the light fleet')
+    await screenshot(safety, 'limits-lowered')
+    await safetyCtx.close()
+
+    const { context: pilotCtx } = await newContext(browser)
+    const pilot = await pilotCtx.newPage()
+    await signInPage(pilot, 'pilot')
+    await expect.poll(async () => Number(await pilot.locator('[data-test="alerts-count"]').textContent()), { timeout: 15_000 }).toBeGreaterThan(0)
+    await pilot.goto('/alerts')
+    const item = pilot.locator('[data-test="inbox-item"]', { hasText: `${code} runway 18` })
+    await expect.poll(() => item.count(), { timeout: 15_000 }).toBe(1)
+    expect(await item.textContent()).toContain('19.3 kt')
+    await screenshot(pilot, 'alerts-inbox')
+    await item.locator('[data-test="acknowledge"]').click()
+    await expect.poll(() => item.textContent()).toContain('Acknowledged')
+    await pilotCtx.close()
+
+    const { context: adminCtx } = await newContext(browser)
+    const admin = await adminCtx.newPage()
+    await signInPage(admin, 'admin')
+    const mail = admin.locator('[data-test="mail"]', { hasText: `${code} runway 18` })
+    // The worker sends within a second or so; reload until the stand-in has it (bounded).
+    await expect.poll(async () => {
+      await admin.goto('/mailbox')
+      await admin.waitForLoadState('networkidle')
+      return mail.count()
+    }, { timeout: 30_000, interval: 1000 }).toBeGreaterThan(mailsBefore)
+    expect(await mail.first().textContent()).toContain('Limit: 18 kt')
+    await screenshot(admin, 'mailbox')
+    await adminCtx.close()
+  })
+})
