@@ -9,7 +9,10 @@ import { runwayComponents, uvToWind, GRID_TOP_M, type GridPoint, type ProfileAna
 import { evaluateLimits, type LimitCheck, type Limits } from './limits'
 import { analyseStored, levelInputsOf, runwayEndInputsOf, type StoredProfileAnalysis } from './profile-analysis'
 import { and, asc, desc, eq, gte, lte, ne, schema, useDB } from './db'
-import { briefingLimits, type BriefingLimits } from './briefing-limits'
+import { effectiveLimits } from './thresholds'
+
+/** The limits a briefing is held against: the safety office's sets layered over the defaults. */
+export type BriefingLimits = Pick<Awaited<ReturnType<typeof effectiveLimits>>, 'limits' | 'limitsFor' | 'source'>
 import { VEERLINE_CAUTION } from '../../shared/utils/caution'
 
 export type ProfileStatus = 'current' | 'expired' | 'upcoming' | 'superseded' | 'withdrawn'
@@ -238,7 +241,7 @@ export async function loadBriefing(code: string, opts: { at?: Date, profileId?: 
       message: `No wind profile has been filed for ${airfield.code} at or before ${at.toISOString()}`, caution: VEERLINE_CAUTION }
   }
   const stored = await analyseProfileRow(profile, airfield, ends)
-  return { briefing: assembleBriefing(stored, await briefingLimits(airfield.id), now, at), caution: VEERLINE_CAUTION }
+  return { briefing: assembleBriefing(stored, await effectiveLimits(airfield.id), now, at), caution: VEERLINE_CAUTION }
 }
 
 export type { ProfileAnalysis, Limits }
@@ -254,7 +257,7 @@ export async function briefingSummaries() {
     const profile = await selectBriefingProfile(airfield.id, now)
     if (!profile) return { code: airfield.code, name: airfield.name, runwayEnds: ends.map(e => e.designator).sort(), profile: null, exceededCount: 0, bestEnd: null }
     const stored = await analyseProfileRow(profile, airfield, ends)
-    const limitSet = await briefingLimits(airfield.id)
+    const limitSet = await effectiveLimits(airfield.id)
     const checks = evaluateLimits(stored.analysis, limitSet.limits, limitSet.limitsFor)
     const ranking = rankRunwayEnds(stored.analysis.runwayEnds, checks)
     return {

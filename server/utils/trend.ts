@@ -1,7 +1,7 @@
 import type { Airfield, Profile, RunwayEnd } from '../db/schema'
 import { analyseStored } from './profile-analysis'
 import { and, asc, desc, eq, gte, inArray, lt, lte, ne, schema, useDB } from './db'
-import { briefingLimits } from './briefing-limits'
+import { effectiveLimits } from './thresholds'
 import { profileStatus, publicAirfield } from './briefing'
 
 const DAY_MS = 86_400_000
@@ -30,7 +30,7 @@ export async function loadTrend(airfield: Airfield, ends: RunwayEnd[], date: str
   const levels = profiles.length
     ? await db.select().from(schema.profileLevels).where(inArray(schema.profileLevels.profileId, profiles.map(x => x.id)))
     : []
-  const limitSet = await briefingLimits(airfield.id)
+  const limitSet = await effectiveLimits(airfield.id)
   const designators = [...ends].map(e => e.designator).sort()
   const points = profiles.map((profile) => {
     const { analysis } = analyseStored(profile, airfield, ends, levels.filter(l => l.profileId === profile.id))
