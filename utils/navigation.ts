@@ -8,6 +8,8 @@ export const NAV_ITEMS: NavItem[] = [
   { to: '/airfields', label: 'Airfields', roles: ['admin', 'dispatcher', 'pilot', 'safety'] },
   { to: '/safety', label: 'Limits', roles: ['admin', 'safety'] },
   { to: '/admin/users', label: 'Users', roles: ['admin'] },
+  { to: '/audit', label: 'Audit', roles: ['admin', 'safety'] },
+  { to: '/tokens', label: 'Tokens', roles: ['dispatcher', 'admin'] },
 ]
 
 export function navFor(role: RoleName | undefined): NavItem[] {
