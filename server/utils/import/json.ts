@@ -62,6 +62,85 @@ function levelLines(text: string): number[] {
   return lines
 }
 
+/** Offset of the first syntax error in a JSON text (a small recursive-descent check), or -1 when it is valid. */
+export function jsonErrorOffset(text: string): number {
+  let i = 0
+  const ws = () => {
+    while (i < text.length && /\s/.test(text[i]!)) i++
+  }
+  const fail = (): never => {
+    throw i
+  }
+  const value = (): void => {
+    ws()
+    const ch = text[i]
+    if (ch === '{') {
+      i++
+      ws()
+      if (text[i] === '}') {
+        i++
+        return
+      }
+      for (;;) {
+        ws()
+        if (text[i] !== '"') fail()
+        string()
+        ws()
+        if (text[i] !== ':') fail()
+        i++
+        value()
+        ws()
+        if (text[i] === ',') i++
+        else if (text[i] === '}') {
+          i++
+          return
+        }
+        else fail()
+      }
+    }
+    if (ch === '[') {
+      i++
+      ws()
+      if (text[i] === ']') {
+        i++
+        return
+      }
+      for (;;) {
+        value()
+        ws()
+        if (text[i] === ',') i++
+        else if (text[i] === ']') {
+          i++
+          return
+        }
+        else fail()
+      }
+    }
+    if (ch === '"') return string()
+    const m = /^(-?(0|[1-9]\d*)(\.\d+)?([eE][+-]?\d+)?|true|false|null)/.exec(text.slice(i, i + 400))
+    if (!m) fail()
+    i += m![0].length
+  }
+  const string = () => {
+    i++
+    while (i < text.length && text[i] !== '"') {
+      if (text[i] === '\\') i++
+      else if (text.charCodeAt(i) < 0x20) fail()
+      i++
+    }
+    if (i >= text.length) fail()
+    i++
+  }
+  try {
+    value()
+    ws()
+    return i < text.length ? i : -1
+  }
+  catch (at) {
+    return typeof at === 'number' ? at : 0
+  }
+}
+
 export function parseProfileJson(text: string): ParsedJsonProfile {
   let value: unknown
   try {
@@ -69,8 +148,8 @@ export function parseProfileJson(text: string): ParsedJsonProfile {
   }
   catch (err) {
     const message = (err as Error).message
-    const pos = /position (\d+)/.exec(message)
-    return { header: {}, levels: [], lines: [], issues: [{ line: pos ? lineAt(text, Number(pos[1])) : 1, field: 'file', message: `not valid JSON: ${message}` }] }
+    const at = jsonErrorOffset(text.replace(/^\uFEFF/, ''))
+    return { header: {}, levels: [], lines: [], issues: [{ line: lineAt(text, Math.max(at, 0)), field: 'file', message: `not valid JSON: ${message}` }] }
   }
   // A bare array is a list of levels; an object is a profile.
   if (Array.isArray(value)) return { header: {}, levels: value, lines: levelLines(`{"levels":${text}}`), issues: [] }
