@@ -114,6 +114,149 @@ CREATE TABLE `profiles` (
 	CONSTRAINT `profiles_id` PRIMARY KEY(`id`)
 );
 --> statement-breakpoint
+CREATE TABLE `briefing_receipts` (
+	`id` int AUTO_INCREMENT NOT NULL,
+	`user_id` int NOT NULL,
+	`profile_id` int NOT NULL,
+	`airfield_id` int NOT NULL,
+	`read_at` datetime(3) NOT NULL DEFAULT CURRENT_TIMESTAMP(3),
+	CONSTRAINT `briefing_receipts_id` PRIMARY KEY(`id`),
+	CONSTRAINT `briefing_receipts_user_profile` UNIQUE(`user_id`,`profile_id`)
+);
+--> statement-breakpoint
+CREATE TABLE `user_preferences` (
+	`user_id` int NOT NULL,
+	`speed_unit` enum('kt','mps') NOT NULL DEFAULT 'kt',
+	`height_unit` enum('ft','m') NOT NULL DEFAULT 'ft',
+	`heading_ref` enum('true','magnetic') NOT NULL DEFAULT 'true',
+	`updated_at` datetime(3) NOT NULL DEFAULT CURRENT_TIMESTAMP(3),
+	CONSTRAINT `user_preferences_user_id` PRIMARY KEY(`user_id`)
+);
+--> statement-breakpoint
+CREATE TABLE `alert_inbox` (
+	`id` int AUTO_INCREMENT NOT NULL,
+	`user_id` int NOT NULL,
+	`alert_id` int NOT NULL,
+	`event` enum('raised','cleared') NOT NULL,
+	`title` varchar(300) NOT NULL,
+	`acknowledged_at` datetime(3),
+	`created_at` datetime(3) NOT NULL DEFAULT CURRENT_TIMESTAMP(3),
+	CONSTRAINT `alert_inbox_id` PRIMARY KEY(`id`)
+);
+--> statement-breakpoint
+CREATE TABLE `alert_subscriptions` (
+	`id` int AUTO_INCREMENT NOT NULL,
+	`user_id` int NOT NULL,
+	`airfield_id` int NOT NULL,
+	`email` boolean NOT NULL DEFAULT true,
+	`push` boolean NOT NULL DEFAULT false,
+	`created_at` datetime(3) NOT NULL DEFAULT CURRENT_TIMESTAMP(3),
+	CONSTRAINT `alert_subscriptions_id` PRIMARY KEY(`id`),
+	CONSTRAINT `alert_subscriptions_user_airfield` UNIQUE(`user_id`,`airfield_id`)
+);
+--> statement-breakpoint
+CREATE TABLE `alerts` (
+	`id` int AUTO_INCREMENT NOT NULL,
+	`airfield_id` int NOT NULL,
+	`profile_id` int NOT NULL,
+	`designator` varchar(3) NOT NULL,
+	`kind` varchar(32) NOT NULL,
+	`value` double NOT NULL,
+	`limit_value` double NOT NULL,
+	`unit` varchar(16) NOT NULL,
+	`excess` double NOT NULL,
+	`message` varchar(300) NOT NULL,
+	`state` enum('active','cleared','superseded','expired') NOT NULL DEFAULT 'active',
+	`continues_alert_id` int,
+	`raised_count` int NOT NULL DEFAULT 1,
+	`cleared_at` datetime(3),
+	`clear_reason` varchar(300),
+	`created_at` datetime(3) NOT NULL DEFAULT CURRENT_TIMESTAMP(3),
+	`updated_at` datetime(3) NOT NULL DEFAULT CURRENT_TIMESTAMP(3),
+	CONSTRAINT `alerts_id` PRIMARY KEY(`id`),
+	CONSTRAINT `alerts_profile_end_kind` UNIQUE(`profile_id`,`designator`,`kind`)
+);
+--> statement-breakpoint
+CREATE TABLE `outbox` (
+	`id` bigint AUTO_INCREMENT NOT NULL,
+	`kind` enum('alert-raised','alert-cleared','invitation','password-reset') NOT NULL,
+	`channel` enum('email','push') NOT NULL,
+	`dedupe_key` varchar(160) NOT NULL,
+	`alert_id` int,
+	`user_id` int,
+	`push_subscription_id` int,
+	`to_address` varchar(254),
+	`subject` varchar(300),
+	`text_body` mediumtext,
+	`html_body` mediumtext,
+	`push_payload` json,
+	`state` enum('queued','sent','failed') NOT NULL DEFAULT 'queued',
+	`attempts` int NOT NULL DEFAULT 0,
+	`next_attempt_at` datetime(3) NOT NULL DEFAULT CURRENT_TIMESTAMP(3),
+	`last_error` text,
+	`sent_at` datetime(3),
+	`sent_by` varchar(64),
+	`created_at` datetime(3) NOT NULL DEFAULT CURRENT_TIMESTAMP(3),
+	`updated_at` datetime(3) NOT NULL DEFAULT CURRENT_TIMESTAMP(3),
+	CONSTRAINT `outbox_id` PRIMARY KEY(`id`),
+	CONSTRAINT `outbox_dedupe` UNIQUE(`dedupe_key`)
+);
+--> statement-breakpoint
+CREATE TABLE `push_subscriptions` (
+	`id` int AUTO_INCREMENT NOT NULL,
+	`user_id` int NOT NULL,
+	`endpoint` varchar(500) NOT NULL,
+	`p256dh` varchar(120) NOT NULL,
+	`auth` varchar(60) NOT NULL,
+	`label` varchar(120) NOT NULL,
+	`created_at` datetime(3) NOT NULL DEFAULT CURRENT_TIMESTAMP(3),
+	CONSTRAINT `push_subscriptions_id` PRIMARY KEY(`id`),
+	CONSTRAINT `push_subscriptions_endpoint` UNIQUE(`endpoint`)
+);
+--> statement-breakpoint
+CREATE TABLE `threshold_changes` (
+	`id` int AUTO_INCREMENT NOT NULL,
+	`scope_key` varchar(40) NOT NULL,
+	`airfield_id` int,
+	`designator` varchar(3),
+	`changed_by_user_id` int NOT NULL,
+	`changed_at` datetime(3) NOT NULL DEFAULT CURRENT_TIMESTAMP(3),
+	`reason` varchar(500) NOT NULL,
+	`old_values` json,
+	`new_values` json NOT NULL,
+	CONSTRAINT `threshold_changes_id` PRIMARY KEY(`id`)
+);
+--> statement-breakpoint
+CREATE TABLE `threshold_sets` (
+	`id` int AUTO_INCREMENT NOT NULL,
+	`scope_key` varchar(40) NOT NULL,
+	`airfield_id` int,
+	`designator` varchar(3),
+	`max_crosswind_kt` double,
+	`max_tailwind_kt` double,
+	`max_layer_shear_kt_per_100ft` double,
+	`max_vector_diff_600m_kt` double,
+	`max_airspeed_loss_kt` double,
+	`near_limit_margin_pct` double,
+	`updated_by_user_id` int,
+	`updated_at` datetime(3) NOT NULL DEFAULT CURRENT_TIMESTAMP(3),
+	CONSTRAINT `threshold_sets_id` PRIMARY KEY(`id`),
+	CONSTRAINT `threshold_sets_scope` UNIQUE(`scope_key`)
+);
+--> statement-breakpoint
+CREATE TABLE `user_tokens` (
+	`id` int AUTO_INCREMENT NOT NULL,
+	`user_id` int NOT NULL,
+	`purpose` enum('invitation','password-reset') NOT NULL,
+	`token_hash` varchar(64) NOT NULL,
+	`expires_at` datetime(3) NOT NULL,
+	`used_at` datetime(3),
+	`created_by_user_id` int,
+	`created_at` datetime(3) NOT NULL DEFAULT CURRENT_TIMESTAMP(3),
+	CONSTRAINT `user_tokens_id` PRIMARY KEY(`id`),
+	CONSTRAINT `user_tokens_hash` UNIQUE(`token_hash`)
+);
+--> statement-breakpoint
 CREATE TABLE `api_tokens` (
 	`id` int AUTO_INCREMENT NOT NULL,
 	`name` varchar(120) NOT NULL,
@@ -149,6 +292,25 @@ ALTER TABLE `profile_levels` ADD CONSTRAINT `profile_levels_profile_id_profiles_
 ALTER TABLE `profiles` ADD CONSTRAINT `profiles_airfield_id_airfields_id_fk` FOREIGN KEY (`airfield_id`) REFERENCES `airfields`(`id`) ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE `profiles` ADD CONSTRAINT `profiles_withdrawn_by_user_id_users_id_fk` FOREIGN KEY (`withdrawn_by_user_id`) REFERENCES `users`(`id`) ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE `profiles` ADD CONSTRAINT `profiles_filed_by_user_id_users_id_fk` FOREIGN KEY (`filed_by_user_id`) REFERENCES `users`(`id`) ON DELETE no action ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE `briefing_receipts` ADD CONSTRAINT `briefing_receipts_user_id_users_id_fk` FOREIGN KEY (`user_id`) REFERENCES `users`(`id`) ON DELETE no action ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE `briefing_receipts` ADD CONSTRAINT `briefing_receipts_profile_id_profiles_id_fk` FOREIGN KEY (`profile_id`) REFERENCES `profiles`(`id`) ON DELETE no action ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE `briefing_receipts` ADD CONSTRAINT `briefing_receipts_airfield_id_airfields_id_fk` FOREIGN KEY (`airfield_id`) REFERENCES `airfields`(`id`) ON DELETE no action ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE `user_preferences` ADD CONSTRAINT `user_preferences_user_id_users_id_fk` FOREIGN KEY (`user_id`) REFERENCES `users`(`id`) ON DELETE no action ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE `alert_inbox` ADD CONSTRAINT `alert_inbox_user_id_users_id_fk` FOREIGN KEY (`user_id`) REFERENCES `users`(`id`) ON DELETE no action ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE `alert_inbox` ADD CONSTRAINT `alert_inbox_alert_id_alerts_id_fk` FOREIGN KEY (`alert_id`) REFERENCES `alerts`(`id`) ON DELETE no action ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE `alert_subscriptions` ADD CONSTRAINT `alert_subscriptions_user_id_users_id_fk` FOREIGN KEY (`user_id`) REFERENCES `users`(`id`) ON DELETE no action ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE `alert_subscriptions` ADD CONSTRAINT `alert_subscriptions_airfield_id_airfields_id_fk` FOREIGN KEY (`airfield_id`) REFERENCES `airfields`(`id`) ON DELETE no action ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE `alerts` ADD CONSTRAINT `alerts_airfield_id_airfields_id_fk` FOREIGN KEY (`airfield_id`) REFERENCES `airfields`(`id`) ON DELETE no action ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE `alerts` ADD CONSTRAINT `alerts_profile_id_profiles_id_fk` FOREIGN KEY (`profile_id`) REFERENCES `profiles`(`id`) ON DELETE no action ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE `outbox` ADD CONSTRAINT `outbox_alert_id_alerts_id_fk` FOREIGN KEY (`alert_id`) REFERENCES `alerts`(`id`) ON DELETE no action ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE `outbox` ADD CONSTRAINT `outbox_user_id_users_id_fk` FOREIGN KEY (`user_id`) REFERENCES `users`(`id`) ON DELETE no action ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE `push_subscriptions` ADD CONSTRAINT `push_subscriptions_user_id_users_id_fk` FOREIGN KEY (`user_id`) REFERENCES `users`(`id`) ON DELETE no action ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE `threshold_changes` ADD CONSTRAINT `threshold_changes_airfield_id_airfields_id_fk` FOREIGN KEY (`airfield_id`) REFERENCES `airfields`(`id`) ON DELETE no action ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE `threshold_changes` ADD CONSTRAINT `threshold_changes_changed_by_user_id_users_id_fk` FOREIGN KEY (`changed_by_user_id`) REFERENCES `users`(`id`) ON DELETE no action ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE `threshold_sets` ADD CONSTRAINT `threshold_sets_airfield_id_airfields_id_fk` FOREIGN KEY (`airfield_id`) REFERENCES `airfields`(`id`) ON DELETE no action ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE `threshold_sets` ADD CONSTRAINT `threshold_sets_updated_by_user_id_users_id_fk` FOREIGN KEY (`updated_by_user_id`) REFERENCES `users`(`id`) ON DELETE no action ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE `user_tokens` ADD CONSTRAINT `user_tokens_user_id_users_id_fk` FOREIGN KEY (`user_id`) REFERENCES `users`(`id`) ON DELETE no action ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE `user_tokens` ADD CONSTRAINT `user_tokens_created_by_user_id_users_id_fk` FOREIGN KEY (`created_by_user_id`) REFERENCES `users`(`id`) ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE `api_tokens` ADD CONSTRAINT `api_tokens_created_by_user_id_users_id_fk` FOREIGN KEY (`created_by_user_id`) REFERENCES `users`(`id`) ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE `api_tokens` ADD CONSTRAINT `api_tokens_revoked_by_user_id_users_id_fk` FOREIGN KEY (`revoked_by_user_id`) REFERENCES `users`(`id`) ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 CREATE INDEX `sign_in_failures_email_at` ON `sign_in_failures` (`email`,`at`);--> statement-breakpoint
@@ -160,4 +322,13 @@ CREATE INDEX `runways_airfield` ON `runways` (`airfield_id`);--> statement-break
 CREATE INDEX `profile_levels_profile` ON `profile_levels` (`profile_id`,`seq`);--> statement-breakpoint
 CREATE INDEX `profiles_airfield_valid` ON `profiles` (`airfield_id`,`valid_from`,`valid_to`);--> statement-breakpoint
 CREATE INDEX `profiles_airfield_status` ON `profiles` (`airfield_id`,`status`);--> statement-breakpoint
+CREATE INDEX `briefing_receipts_airfield` ON `briefing_receipts` (`airfield_id`,`read_at`);--> statement-breakpoint
+CREATE INDEX `alert_inbox_user` ON `alert_inbox` (`user_id`,`acknowledged_at`);--> statement-breakpoint
+CREATE INDEX `alerts_airfield_state` ON `alerts` (`airfield_id`,`state`);--> statement-breakpoint
+CREATE INDEX `outbox_due` ON `outbox` (`state`,`next_attempt_at`);--> statement-breakpoint
+CREATE INDEX `outbox_alert` ON `outbox` (`alert_id`);--> statement-breakpoint
+CREATE INDEX `push_subscriptions_user` ON `push_subscriptions` (`user_id`);--> statement-breakpoint
+CREATE INDEX `threshold_changes_scope` ON `threshold_changes` (`scope_key`,`changed_at`);--> statement-breakpoint
+CREATE INDEX `threshold_sets_airfield` ON `threshold_sets` (`airfield_id`);--> statement-breakpoint
+CREATE INDEX `user_tokens_user` ON `user_tokens` (`user_id`);--> statement-breakpoint
 CREATE INDEX `idempotency_created` ON `idempotency_keys` (`created_at`);

@@ -3,6 +3,7 @@ import type { MySql2Database } from 'drizzle-orm/mysql2'
 import * as schema from '../schema'
 import { seedUsers } from './users'
 import { seedDemoAirfields } from './demo-airfields'
+import { seedDemoAlerts } from './demo-alerts'
 
 export type SeedDB = MySql2Database<typeof schema>
 export type SeedPart = { name: string, run: (tx: SeedDB) => Promise<void> }
@@ -11,6 +12,7 @@ export type SeedPart = { name: string, run: (tx: SeedDB) => Promise<void> }
 const parts: SeedPart[] = [
   { name: 'users', run: seedUsers },
   { name: 'demo-airfields', run: seedDemoAirfields },
+  { name: 'demo-alerts', run: seedDemoAlerts },
 ]
 
 export async function seedDemo(db: SeedDB): Promise<string[]> {
