@@ -10,10 +10,10 @@ import { evaluateLimits, type LimitCheck, type Limits } from './limits'
 import { analyseStored, levelInputsOf, runwayEndInputsOf, type StoredProfileAnalysis } from './profile-analysis'
 import { and, asc, desc, eq, gte, lte, ne, schema, useDB } from './db'
 import { effectiveLimits } from './thresholds'
+import { VEERLINE_CAUTION } from '../../shared/utils/caution'
 
 /** The limits a briefing is held against: the safety office's sets layered over the defaults. */
 export type BriefingLimits = Pick<Awaited<ReturnType<typeof effectiveLimits>>, 'limits' | 'limitsFor' | 'source'>
-import { VEERLINE_CAUTION } from '../../shared/utils/caution'
 
 export type ProfileStatus = 'current' | 'expired' | 'upcoming' | 'superseded' | 'withdrawn'
 
