@@ -1,10 +1,7 @@
 import { z } from 'zod'
+import { airfieldCodeSchema } from './airfield-schema'
 
 // Route pieces for briefings, trends and read receipts (server and client read the same messages).
-export const airfieldCodeParamSchema = z.object({
-  code: z.string().trim().regex(/^[A-Za-z]{4}$/, 'Airfield code must be four letters').transform(s => s.toUpperCase()),
-})
-
 const isoTime = z.string().trim().refine(s => /^\d{4}-\d{2}-\d{2}T/.test(s) && !Number.isNaN(Date.parse(s)),
   { message: 'must be an ISO 8601 time such as 2026-03-01T06:00:00Z' }).transform(s => new Date(s))
 
@@ -25,6 +22,6 @@ export const receiptBodySchema = z.object({
 }).strict()
 
 export const receiptQuerySchema = z.object({
-  airfield: z.string().trim().regex(/^[A-Za-z]{4}$/, 'Airfield code must be four letters').transform(s => s.toUpperCase()).optional(),
+  airfield: airfieldCodeSchema.optional(),
   profile: z.coerce.number().int().positive('must be a positive profile id').optional(),
 }).strict()

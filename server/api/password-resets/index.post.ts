@@ -3,6 +3,8 @@ import { emailSchema } from '#shared/utils/schemas'
 import { issueToken } from '../../utils/alerts/tokens'
 
 const bodySchema = z.object({ email: emailSchema })
+const RESET_WINDOW_MS = 15 * 60 * 1000
+const RESET_MAX_PER_WINDOW = 3
 
 // Public: asks for a reset link. The answer is the same whether or not the address has an account.
 export default defineEventHandler(async (event) => {
@@ -12,6 +14,11 @@ export default defineEventHandler(async (event) => {
   await useDB().transaction(async (tx) => {
     const [user] = await tx.select().from(schema.users).where(eq(schema.users.email, body.data.email)).for('update')
     if (!user || user.disabled || !user.passwordHash) return
+    // At most 3 links per account per 15 minutes, so the address cannot be flooded; the answer stays the same.
+    const t = schema.userTokens
+    const [recent] = await tx.select({ n: sql<number>`COUNT(*)` }).from(t)
+      .where(and(eq(t.userId, user.id), eq(t.purpose, 'password-reset'), gte(t.createdAt, new Date(Date.now() - RESET_WINDOW_MS))))
+    if (Number(recent?.n ?? 0) >= RESET_MAX_PER_WINDOW) return
     await issueToken(tx, 'password-reset', user, appUrl)
     await recordAudit(tx, { label: 'password-reset request', userId: user.id }, 'user.request-reset', 'user', user.id)
   })

@@ -1,4 +1,5 @@
-import { airfieldCodeParamSchema, briefingQuerySchema } from '#shared/utils/briefing-schemas'
+import { airfieldCodeParamSchema } from '#shared/utils/airfield-schema'
+import { briefingQuerySchema } from '#shared/utils/briefing-schemas'
 
 // The runway briefing of an airfield: the profile valid now (or at ?at=, or the version ?profile=), every role.
 export default defineEventHandler(async (event) => {

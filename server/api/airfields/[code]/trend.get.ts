@@ -1,4 +1,5 @@
-import { airfieldCodeParamSchema, trendQuerySchema } from '#shared/utils/briefing-schemas'
+import { airfieldCodeParamSchema } from '#shared/utils/airfield-schema'
+import { trendQuerySchema } from '#shared/utils/briefing-schemas'
 
 // The day's profiles of an airfield over time: strongest shear and each runway end's surface crosswind and tailwind.
 export default defineEventHandler(async (event) => {
