@@ -18,11 +18,11 @@ export function formPath(field: string): string {
  * Puts each server issue beside its field when the form has that field; returns the issues left over
  * (so the form can still list them under its failure line).
  */
-export function placeIssues(issues: { field: string, message: string }[], fields: readonly string[], setFieldError: (path: string, message: string) => void) {
+export function placeIssues<P extends string>(issues: { field: string, message: string }[], fields: readonly P[], setFieldError: (path: P, message: string) => void) {
   const rest: { field: string, message: string }[] = []
   for (const i of issues) {
     const path = formPath(i.field)
-    if (fields.includes(path)) setFieldError(path, i.message)
+    if ((fields as readonly string[]).includes(path)) setFieldError(path as P, i.message)
     else rest.push(i)
   }
   return rest
