@@ -93,3 +93,15 @@ export const runwaySchema = z.object({
   }
 })
 export type RunwayInput = z.infer<typeof runwaySchema>
+
+// Forms: an emptied input reads as ''; the form schemas take that as "not given", then apply the very
+// rules the API applies (so a field error reads the same on both sides).
+export function blanksAsMissing(v: unknown): unknown {
+  if (v === '') return undefined
+  if (Array.isArray(v)) return v.map(blanksAsMissing)
+  if (v && typeof v === 'object') return Object.fromEntries(Object.entries(v).map(([k, x]) => [k, blanksAsMissing(x)]))
+  return v
+}
+/** The airfield edit form: every field present (as on create, without the code), checked as the API checks it. */
+export const airfieldEditFormSchema = z.preprocess(blanksAsMissing, z.object(airfieldShape).omit({ code: true }).strict().superRefine(checkAirfield))
+export const runwayFormSchema = z.preprocess(blanksAsMissing, runwaySchema)
