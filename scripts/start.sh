@@ -45,4 +45,14 @@ if [ "${NODE_ENV:-}" != production ]; then
   log "  safety@veerline.example      safety officer"
 fi
 log "press Ctrl-C to stop"
-wait "$APP_PID" || true
+# npm passes SIGTERM to its shell, which may end without passing it on: stop as well when the parent goes.
+PARENT_PID=$PPID
+while kill -0 "$APP_PID" 2>/dev/null; do
+  if ! kill -0 "$PARENT_PID" 2>/dev/null; then
+    log "npm has stopped"
+    cleanup
+  fi
+  sleep 1 &
+  wait $! || true
+done
+log "the app server has stopped: see $VEERLINE_DATA_DIR/server.log"
