@@ -8,12 +8,16 @@ export const DEMO = {
   safety: 'safety@veerline.example',
 } as const
 
-let addressCounter = 0
-/** A distinct client address per client, so sign-in lockouts in one test do not reach another. */
+/**
+ * A client address of its own for each client (sent as X-Forwarded-For, which the test server trusts), so that
+ * sign-in lockouts in one test do not reach another: random in 198.18.0.0/15, the range kept for benchmark tests
+ * (RFC 2544). Only the address-lockout test uses TEST-NET-3 (203.0.113.0/24, RFC 5737).
+ */
 function nextAddress() {
-  addressCounter += 1
-  return `198.51.100.${(process.pid + addressCounter) % 250 + 1}`
+  const n = Math.floor(Math.random() * 131_070) + 1
+  return `198.${18 + (n >> 16)}.${(n >> 8) & 255}.${n & 255}`
 }
+export const LOCKOUT_TEST_ADDRESS = '203.0.113.66'
 
 export type ApiResponse<T = any> = { status: number, headers: Headers, body: T }
 
