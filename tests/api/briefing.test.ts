@@ -1,6 +1,6 @@
 // The briefing route against the wind engine run directly on the same input, for every demo profile.
 import { beforeAll, describe, expect, it } from 'vitest'
-import { ApiClient, signedIn } from '../support/api'
+import { ApiClient, demoDay, signedIn } from '../support/api'
 import { analyseProfile, MPS_PER_KT } from '../../server/utils/wind'
 import { DEFAULT_LIMITS, evaluateLimits } from '../../server/utils/limits'
 
@@ -14,7 +14,7 @@ beforeAll(async () => {
 })
 
 async function demoProfileIds(code: string): Promise<number[]> {
-  const res = await pilot.get(`/api/airfields/${code}/trend`)
+  const res = await pilot.get(`/api/airfields/${code}/trend?date=${await demoDay(pilot)}`)
   expect(res.status).toBe(200)
   return res.body.points.map((p: { profileId: number }) => p.profileId)
 }
@@ -144,7 +144,7 @@ describe('GET /api/airfields/{code}/briefing', () => {
 
 describe('GET /api/airfields/{code}/trend', () => {
   it('charts the day: strongest shear per profile equals the briefing, thresholds are the limits', async () => {
-    const res = await pilot.get('/api/airfields/XHGH/trend')
+    const res = await pilot.get(`/api/airfields/XHGH/trend?date=${await demoDay(pilot)}`)
     expect(res.status).toBe(200)
     expect(res.body.thresholds.maxLayerShearKtPer100ft).toBe(DEFAULT_LIMITS.maxLayerShearKtPer100ft)
     expect(res.body.thresholds.perEnd.map((p: { designator: string }) => p.designator)).toEqual(['11', '29'])

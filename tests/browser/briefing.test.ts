@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { launchBrowser, newContext, signInPage, screenshot, type Browser, type Page } from '../support/browser'
-import { signedIn } from '../support/api'
+import { demoDay, signedIn } from '../support/api'
 
 let browser: Browser
 beforeAll(async () => {
@@ -130,7 +130,7 @@ describe('the briefing page', () => {
     const page = await context.newPage()
     await signInPage(page, 'pilot')
     // The midday radiosonde of the demo day reaches the upper troposphere: convective context is shown.
-    const day = (await (await signedIn('pilot')).get('/api/airfields/XHGH/trend')).body.date
+    const day = await demoDay(await signedIn('pilot'))
     await openBriefing(page, `XHGH?at=${day}T12:30:00Z`)
     expect(await page.locator('[data-test=convective]').textContent()).toContain('helicity')
     expect(await page.locator('[data-test=polar-storm]').count()).toBeGreaterThan(0)

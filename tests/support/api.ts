@@ -67,3 +67,13 @@ export async function signedIn(role: keyof typeof DEMO, baseUrl = BASE_URL) {
   await client.signIn(DEMO[role])
   return client
 }
+
+/**
+ * The UTC day the demo scenario was seeded for (its first profile's date), so that tests read the demo's day even
+ * when they run just after midnight UTC.
+ */
+export async function demoDay(client: ApiClient): Promise<string> {
+  const res = await client.get('/api/airfields/XVAL/profiles?sort=validFrom&order=asc&pageSize=1')
+  if (res.status !== 200 || !res.body.profiles?.length) throw new Error(`no demo profiles at XVAL: ${res.status}`)
+  return String(res.body.profiles[0].validFrom).slice(0, 10)
+}
