@@ -10,6 +10,7 @@ export VEERLINE_DB_DIR=$VEERLINE_DATA_DIR/mariadb
 export VEERLINE_DB_PORT=${VEERLINE_TEST_DB_PORT:-3308}
 export VEERLINE_HOST=127.0.0.1
 export VEERLINE_PORT=${VEERLINE_TEST_PORT:-3100}
+# A second app instance, started by the two-instance delivery test itself (tests/api/alerts.test.ts).
 export VEERLINE_PORT_2=${VEERLINE_TEST_PORT_2:-3101}
 export VEERLINE_SMTP_PORT=${VEERLINE_TEST_SMTP_PORT:-2526}
 export VEERLINE_PUSH_PORT=${VEERLINE_TEST_PUSH_PORT:-8444}
@@ -26,11 +27,9 @@ ensure_chromium_installed
 app_session_password
 
 APP_PID=""
-APP_PID_2=""
 cleanup() {
   trap - INT TERM EXIT
   stop_pid "$APP_PID"
-  stop_pid "$APP_PID_2"
   standins_stop
   mariadb_stop
 }

@@ -4,11 +4,6 @@ export function fetchFailure(err: unknown, fallback: string): { message: string,
   return { message: e.data?.statusMessage || e.statusMessage || fallback, issues: e.data?.data?.issues ?? [] }
 }
 
-/** A UTC instant shown with its Z: 2026-05-01 06:00Z. */
-export function utcShort(iso: string | null | undefined): string {
-  return iso ? `${iso.slice(0, 10)} ${iso.slice(11, 16)}Z` : '—'
-}
-
 /** A server issue's field (`ends.1.designator` or `ends[1].designator`) as the form path vee-validate uses. */
 export function formPath(field: string): string {
   return field.replace(/\.(\d+)(?=\.|$)/g, '[$1]')

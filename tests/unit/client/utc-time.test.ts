@@ -1,12 +1,14 @@
 import { describe, expect, it } from 'vitest'
-import { parseUtcText, utcText } from '../../../utils/utc-time'
+import { parseUtcText, utcSeconds, utcShort } from '../../../utils/utc-time'
 
 // ISO 8601 extended format with the UTC designator Z (ISO 8601; clause numbers from memory). Aviation writes times
 // in UTC on a 24-hour clock with a Z (common practice).
 describe('UTC time entry', () => {
   it('shows an ISO instant as a 24-hour UTC time with a Z', () => {
-    expect(utcText('2026-03-01T18:05:00Z')).toBe('2026-03-01 18:05Z')
-    expect(utcText('')).toBe('')
+    expect(utcShort('2026-03-01T18:05:00Z')).toBe('2026-03-01 18:05Z')
+    expect(utcSeconds('2026-03-01T18:05:07.123Z')).toBe('2026-03-01 18:05:07Z')
+    expect(utcShort('', '')).toBe('')
+    expect(utcShort(null)).toBe('—')
   })
 
   it('reads what a dispatcher types back to an ISO 8601 instant', () => {
@@ -22,6 +24,6 @@ describe('UTC time entry', () => {
 
   it('round-trips', () => {
     const iso = '2027-11-30T00:30:00Z'
-    expect(parseUtcText(utcText(iso))).toBe(iso)
+    expect(parseUtcText(utcShort(iso))).toBe(iso)
   })
 })
