@@ -1,6 +1,6 @@
 // Veerline: Nuxt 4 with the source at the project root (no app/ folder).
 export default defineNuxtConfig({
-  modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', 'nuxt-auth-utils', '@nuxt/eslint'],
+  modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', 'nuxt-auth-utils', 'nuxt-security', '@nuxt/eslint'],
   devtools: { enabled: false },
   app: {
     head: {
@@ -17,6 +17,8 @@ export default defineNuxtConfig({
   css: ['~/assets/css/fonts.css'],
   runtimeConfig: {
     // Filled from NUXT_* environment variables at run time (see README, Configuration).
+    // The absolute session limit in seconds (NUXT_SESSION_MAX_AGE): the sealed cookie and the stored session end then.
+    session: { maxAge: 7 * 24 * 3600 },
     public: {
       appUrl: 'http://127.0.0.1:3000',
     },
@@ -29,6 +31,55 @@ export default defineNuxtConfig({
     // TypeScript modules that routes import by path, so their many exports do not flood the global names.
     imports: {
       dirsScanOptions: { fileFilter: (file: string) => !/server[/\\]utils[/\\][^/\\]+[/\\]/.test(file) },
+    },
+  },
+  // nuxt-security 2.5.1: the headers and the CSP with a per-response nonce. Its defaults changed for Veerline: no
+  // CORS answer at all (nothing but our own pages calls the API), no HSTS or upgrade-insecure-requests here (both are
+  // added at run time only when the public address is https: server/plugins/security.ts), frame-ancestors 'none'
+  // and X-Frame-Options DENY, no Cross-Origin-Embedder-Policy, and its rate limiter, request size limiter and XSS
+  // filter off: the sign-in lockout, server/middleware/01.request-guard.ts and output escaping do those jobs.
+  security: {
+    strict: false,
+    nonce: true,
+    sri: true,
+    removeLoggers: false,
+    hidePoweredBy: true,
+    corsHandler: false,
+    rateLimiter: false,
+    requestSizeLimiter: false,
+    xssValidator: false,
+    csrf: false,
+    headers: {
+      crossOriginEmbedderPolicy: false,
+      crossOriginOpenerPolicy: 'same-origin',
+      crossOriginResourcePolicy: 'same-origin',
+      originAgentCluster: '?1',
+      referrerPolicy: 'same-origin',
+      strictTransportSecurity: false,
+      xContentTypeOptions: 'nosniff',
+      xFrameOptions: 'DENY',
+      xXSSProtection: '0',
+      permissionsPolicy: { 'camera': [], 'display-capture': [], 'geolocation': [], 'microphone': [], 'payment': [], 'usb': [] },
+      contentSecurityPolicy: {
+        'default-src': ['\'self\''],
+        'base-uri': ['\'none\''],
+        'connect-src': ['\'self\''],
+        'font-src': ['\'self\''],
+        'form-action': ['\'self\''],
+        'frame-ancestors': ['\'none\''],
+        // The mailbox preview is an <iframe srcdoc sandbox="">: no scripts, no same-origin access.
+        'frame-src': ['\'self\''],
+        'img-src': ['\'self\'', 'data:'],
+        'manifest-src': ['\'self\''],
+        'media-src': ['\'self\''],
+        'object-src': ['\'none\''],
+        'script-src': ['\'self\'', '\'strict-dynamic\'', '\'nonce-{{nonce}}\''],
+        'script-src-attr': ['\'none\''],
+        // Vue writes style attributes (chart positions, bars), which a nonce cannot cover.
+        'style-src': ['\'self\'', '\'unsafe-inline\''],
+        'worker-src': ['\'self\''],
+        'upgrade-insecure-requests': false,
+      },
     },
   },
   typescript: { strict: true, typeCheck: false },

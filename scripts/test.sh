@@ -15,6 +15,8 @@ export VEERLINE_PORT_2=${VEERLINE_TEST_PORT_2:-3101}
 export VEERLINE_SMTP_PORT=${VEERLINE_TEST_SMTP_PORT:-2526}
 export VEERLINE_PUSH_PORT=${VEERLINE_TEST_PUSH_PORT:-8444}
 export VEERLINE_TRUST_PROXY=1
+# The default push-service allow-list plus a listed name that resolves to loopback, for the send-time address check.
+export VEERLINE_PUSH_HOSTS=${VEERLINE_PUSH_HOSTS:-fcm.googleapis.com,android.googleapis.com,updates.push.services.mozilla.com,web.push.apple.com,*.push.apple.com,*.notify.windows.com,localhost}
 export TEST_OUTPUT_DIR=${TEST_OUTPUT_DIR:-$ROOT/test-results}
 mkdir -p "$VEERLINE_DATA_DIR" "$TEST_OUTPUT_DIR"
 unset NODE_ENV

@@ -1,19 +1,16 @@
 import type { H3Event } from 'h3'
 import type { RoleName } from '#shared/utils/roles'
 import type { User } from '../db/schema'
-import { eq, schema, useDB } from './db'
+import { sessionUserOrEnd } from '../domain/accounts/session-store'
 
 /**
- * Who is asking: the signed-in user as the database knows them now.
- * A disabled or removed user's session is cleared and answered 401 on its next request.
+ * Who is asking: the signed-in user as the database knows them now, through a session that still holds
+ * (server/domain/accounts/session-store.ts). An ended, idle, expired or disabled user's session is cleared and
+ * answered 401 on its next request. One query per request, and none more when a route asks twice.
  */
 export async function requireUser(event: H3Event): Promise<User> {
-  const session = await requireUserSession(event, { message: 'Sign in first' })
-  const [user] = await useDB().select().from(schema.users).where(eq(schema.users.id, session.user.id))
-  if (!user || user.disabled) {
-    await clearUserSession(event)
-    throw createError({ statusCode: 401, statusMessage: user ? 'This account is disabled' : 'Sign in first' })
-  }
+  if (event.context.user) return event.context.user
+  const user = await sessionUserOrEnd(event)
   event.context.user = user
   return user
 }

@@ -75,13 +75,15 @@ describe('sign-in and sessions', () => {
     expect(again.status).toBe(401)
   })
 
-  it('admin changes a role and the next request sees it', async () => {
+  it('admin changes a role: the open session ends on its next request and the next sign-in has the new role', async () => {
     const admin = await signedIn('admin')
     const email = `role-${Date.now()}@veerline.example`
     const created = await admin.post('/api/users', { email, name: 'Role Probe', role: 'pilot', password: 'correct-horse-3' })
     const user = new ApiClient()
     await user.signIn(email, 'correct-horse-3')
     await admin.patch(`/api/users/${created.body.user.id}`, { role: 'safety' })
+    expect((await user.get('/api/session')).status).toBe(401)
+    await user.signIn(email, 'correct-horse-3')
     expect((await user.get('/api/session')).body.user.role).toBe('safety')
   })
 

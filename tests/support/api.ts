@@ -26,10 +26,18 @@ export class ApiClient {
   constructor(public baseUrl = BASE_URL, public address = nextAddress()) {}
 
   async request<T = any>(method: string, path: string, body?: unknown, headers: Record<string, string> = {}): Promise<ApiResponse<T>> {
-    const h: Record<string, string> = { 'x-forwarded-for': this.address, ...headers }
+    // Like a browser on one of our pages: a write names its origin (the server refuses cookie writes without it).
+    const origin = method === 'GET' || method === 'HEAD' ? {} : { origin: new URL(this.baseUrl).origin }
+    const h: Record<string, string> = { 'x-forwarded-for': this.address, ...origin, ...headers }
     if (this.cookie) h.cookie = this.cookie
     let payload: BodyInit | undefined
-    if (typeof body === 'string' || body instanceof FormData || body instanceof Blob) payload = body as BodyInit
+    if (typeof body === 'string' || body instanceof FormData || body instanceof Blob) {
+      payload = body as BodyInit
+      // A text body without a declared type: JSON when it looks like JSON, else a CSV file (the import route).
+      if (typeof body === 'string' && !Object.keys(h).some(k => k.toLowerCase() === 'content-type')) {
+        h['content-type'] = /^\uFEFF?\s*[[{]/.test(body) ? 'application/json' : 'text/csv'
+      }
+    }
     else if (body !== undefined) {
       payload = JSON.stringify(body)
       h['content-type'] = 'application/json'

@@ -1,14 +1,28 @@
 import { z } from 'zod'
 import { readMailbox } from '../../utils/alerts/mailbox'
+import { maskTokenLinks, standinsEnabled } from '../../utils/alerts/standins'
 
-const querySchema = z.object({ to: z.string().trim().max(254).optional(), limit: z.coerce.number().int().min(1).max(1000).default(200) })
+const querySchema = z.object({
+  to: z.string().trim().max(254).optional(),
+  limit: z.coerce.number().int().min(1).max(1000).default(200),
+  reveal: z.enum(['0', '1', 'true', 'false']).optional(),
+})
 
-// The messages the local SMTP stand-in received, newest first. Admins only.
+// The messages the local SMTP stand-in received, newest first. Admins only, and only where the stand-ins run (never
+// in production). Invitation and reset links are masked unless the admin asks to reveal them (recorded in the audit).
 export default defineEventHandler(async (event) => {
-  await requireRole(event, 'admin')
+  const admin = await requireRole(event, 'admin')
+  if (!standinsEnabled()) throw createError({ statusCode: 404, statusMessage: 'There is no mailbox stand-in in production' })
   const query = await getValidatedQuery(event, querySchema.safeParse)
   if (!query.success) throw validationError(query.error)
   const to = query.data.to?.toLowerCase()
+  const reveal = query.data.reveal === '1' || query.data.reveal === 'true'
   const all = (await readMailbox()).filter(m => !to || m.envelopeTo.some(t => t.toLowerCase() === to))
-  return { messages: all.reverse().slice(0, query.data.limit), total: all.length }
+  const messages = all.reverse().slice(0, query.data.limit)
+  if (reveal) await recordAudit(useDB(), { user: admin }, 'mailbox.reveal-links', 'mailbox', 'stand-in', { to: to ?? null, count: messages.length })
+  return {
+    messages: reveal ? messages : messages.map(m => ({ ...m, text: maskTokenLinks(m.text), html: m.html === null ? null : maskTokenLinks(m.html) })),
+    total: all.length,
+    revealed: reveal,
+  }
 })

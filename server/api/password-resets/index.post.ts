@@ -13,11 +13,12 @@ export default defineEventHandler(async (event) => {
   const appUrl = process.env.NUXT_PUBLIC_APP_URL || useRuntimeConfig().public.appUrl
   await useDB().transaction(async (tx) => {
     const [user] = await tx.select().from(schema.users).where(eq(schema.users.email, body.data.email)).for('update')
-    if (!user || user.disabled || !user.passwordHash) return
     // At most 3 links per account per 15 minutes, so the address cannot be flooded; the answer stays the same.
+    // The count runs for an unknown address too (for no user), so both take the same reads.
     const t = schema.userTokens
     const [recent] = await tx.select({ n: sql<number>`COUNT(*)` }).from(t)
-      .where(and(eq(t.userId, user.id), eq(t.purpose, 'password-reset'), gte(t.createdAt, new Date(Date.now() - RESET_WINDOW_MS))))
+      .where(and(eq(t.userId, user?.id ?? 0), eq(t.purpose, 'password-reset'), gte(t.createdAt, new Date(Date.now() - RESET_WINDOW_MS))))
+    if (!user || user.disabled || !user.passwordHash) return
     if (Number(recent?.n ?? 0) >= RESET_MAX_PER_WINDOW) return
     await issueToken(tx, 'password-reset', user, appUrl)
     await recordAudit(tx, { label: 'password-reset request', userId: user.id }, 'user.request-reset', 'user', user.id)

@@ -1,8 +1,10 @@
 import { pushStandinUrl } from '../../utils/alerts/push-standin'
+import { standinsEnabled } from '../../utils/alerts/standins'
 
 // What the push-service stand-in received (verified and decrypted) for the signed-in user's simulated devices.
 export default defineEventHandler(async (event) => {
   const user = await requireUser(event)
+  if (!standinsEnabled()) throw createError({ statusCode: 404, statusMessage: 'There is no push-service stand-in in production' })
   const p = schema.pushSubscriptions
   const mine = await useDB().select({ id: p.id, label: p.label, endpoint: p.endpoint }).from(p).where(eq(p.userId, user.id))
   const base = pushStandinUrl()

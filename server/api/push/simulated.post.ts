@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { pushStandinUrl } from '../../utils/alerts/push-standin'
+import { standinsEnabled } from '../../utils/alerts/standins'
 
 const bodySchema = z.object({ label: z.string().trim().min(1).max(120).default('Simulated device') })
 
@@ -7,6 +8,7 @@ const bodySchema = z.object({ label: z.string().trim().min(1).max(120).default('
 // decrypt what arrives) and it is saved as one of the user's push subscriptions.
 export default defineEventHandler(async (event) => {
   const user = await requireUser(event)
+  if (!standinsEnabled()) throw createError({ statusCode: 404, statusMessage: 'There is no push-service stand-in in production' })
   const body = await readValidatedBody(event, b => bodySchema.safeParse(b ?? {}))
   if (!body.success) throw validationError(body.error)
   let issued: { id: string, endpoint: string, keys: { p256dh: string, auth: string } }

@@ -1,3 +1,4 @@
+// Signs this browser out: its session row goes (server/plugins/security.ts ends it on clear) and the cookie is emptied.
 export default defineEventHandler(async (event) => {
   await requireUser(event)
   await clearUserSession(event)

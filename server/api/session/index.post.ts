@@ -1,4 +1,6 @@
 import { signInSchema } from '#shared/utils/schemas'
+import { credentialsMatch } from '../../domain/accounts/credentials'
+import { startSession } from '../../domain/accounts/session-store'
 
 // Signing in is the one route open to a signed-out caller.
 export default defineEventHandler(async (event) => {
@@ -21,14 +23,14 @@ export default defineEventHandler(async (event) => {
   }
 
   const [user] = await useDB().select().from(schema.users).where(eq(schema.users.email, email))
-  const ok = !!user?.passwordHash && !user.disabled && await verifyPassword(user.passwordHash, password)
+  const ok = await credentialsMatch(user, password, { hash: hashPassword, verify: verifyPassword })
   if (!user || !ok) {
     await recordSignInFailure(email, address)
     // One message whatever went wrong: no hint whether the e-mail exists.
     throw createError({ statusCode: 401, statusMessage: 'E-mail or password not recognised' })
   }
   await useDB().delete(schema.signInFailures).where(eq(schema.signInFailures.email, email))
-  await replaceUserSession(event, { user: sessionUser(user), signedInAt: new Date().toISOString() })
   await recordAudit(useDB(), { user }, 'session.sign-in', 'user', user.id)
+  await startSession(event, user, sessionUser(user))
   return { user: sessionUser(user) }
 })

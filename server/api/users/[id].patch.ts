@@ -1,4 +1,5 @@
 import { idParamSchema, updateUserSchema } from '#shared/utils/schemas'
+import { endUserSessions } from '../../domain/accounts/session-store'
 
 export default defineEventHandler(async (event) => {
   const admin = await requireRole(event, 'admin')
@@ -14,6 +15,8 @@ export default defineEventHandler(async (event) => {
     const [before] = await tx.select().from(schema.users).where(eq(schema.users.id, id)).for('update')
     if (!before) return null
     await tx.update(schema.users).set({ ...change, updatedAt: new Date() }).where(eq(schema.users.id, id))
+    // A new role or a disabled account ends the person's sessions: they sign in again under the new terms.
+    if ((change.role !== undefined && change.role !== before.role) || change.disabled === true) await endUserSessions(id, tx)
     await recordAudit(tx, { user: admin }, 'user.update', 'user', id, {
       before: { name: before.name, role: before.role, disabled: before.disabled }, after: change,
     })

@@ -6,6 +6,7 @@ import { recordAudit } from '../audit'
 import { sessionUser } from '../auth'
 import { validationError } from '../errors'
 import { findLiveToken, type TokenPurpose } from './tokens'
+import { endUserSessions, startSession } from '../../domain/accounts/session-store'
 
 export const acceptTokenSchema = z.object({ token: z.string({ required_error: 'token is required' }).max(100), password: newPasswordSchema })
 
@@ -20,8 +21,10 @@ export async function acceptToken(event: H3Event, purpose: TokenPurpose) {
     await tx.update(schema.userTokens).set({ usedAt: new Date() }).where(eq(schema.userTokens.id, row.token.id))
     await tx.update(schema.users).set({ passwordHash, updatedAt: new Date() }).where(eq(schema.users.id, row.user.id))
     await recordAudit(tx, { user: row.user }, purpose === 'invitation' ? 'user.accept-invitation' : 'user.reset-password', 'user', row.user.id)
+    // A new password ends every session the account had (someone else may have been signed in with the old one).
+    await endUserSessions(row.user.id, tx)
     return row.user
   })
-  await replaceUserSession(event, { user: sessionUser(user), signedInAt: new Date().toISOString() })
+  await startSession(event, user, sessionUser(user))
   return { user: sessionUser(user) }
 }

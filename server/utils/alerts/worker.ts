@@ -5,7 +5,7 @@ import type { DB, Tx } from '../db'
 import type { OutboxRow } from '../../db/schema'
 import { nextDelayMs, retryPolicy, type RetryPolicy } from './backoff'
 import { sendMail } from './mailer'
-import { PushGoneError, sendPush } from './push'
+import { PushGoneError, PushRefusedError, sendPush } from './push'
 
 export type Senders = {
   email: (row: OutboxRow) => Promise<void>
@@ -53,7 +53,7 @@ export async function runOutboxOnce(db: DB, senders: Senders, instanceId: string
       }
       catch (err) {
         const message = (err instanceof Error ? err.message : String(err)).slice(0, 1000)
-        const delay = err instanceof PushGoneError ? null : nextDelayMs(attempts, policy)
+        const delay = err instanceof PushGoneError || err instanceof PushRefusedError ? null : nextDelayMs(attempts, policy)
         await tx.update(schema.outbox).set({
           attempts, lastError: message, updatedAt: new Date(),
           ...(delay == null ? { state: 'failed' as const } : { nextAttemptAt: new Date(Date.now() + delay) }),
