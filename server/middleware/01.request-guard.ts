@@ -40,6 +40,8 @@ export default defineEventHandler(async (event) => {
   const limit = bodyLimitFor(pathname)
   const tooLarge = () => {
     setResponseHeader(event, 'Connection', 'close')
+    event.node.req.resume()
+    setTimeout(() => event.node.req.socket?.destroy(), 5000).unref()
     return createError({ statusCode: 413, statusMessage: `The request body is larger than the limit of ${formatBytes(limit)} for this route` })
   }
   if (declared !== null && (!Number.isFinite(declared) || declared > limit)) throw tooLarge()
@@ -90,7 +92,11 @@ function readCapped(req: IncomingMessage, limit: number): Promise<Buffer | null>
     const onData = (chunk: Buffer) => {
       size += chunk.length
       if (size > limit) {
-        req.pause()
+        // Nothing more is kept; what is still on its way is let through and dropped, so the client can read the
+        // 413 (closing on unread data makes TCP reset the connection before the answer arrives). At most 5 s of it.
+        req.off('data', onData)
+        req.resume()
+        setTimeout(() => req.socket?.destroy(), 5000).unref()
         finish(null)
       }
       else chunks.push(chunk)

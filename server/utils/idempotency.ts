@@ -14,7 +14,27 @@ export function idempotencyClaim(event: H3Event, actor: FilingActor, rawBody: st
     throw createError({ statusCode: 400, statusMessage: 'Idempotency-Key must be 1 to 200 visible ASCII characters' })
   }
   const scope = actor.token ? `token:${actor.token.id}` : `user:${actor.user.id}`
-  return { scope, key, route: `${event.method} ${event.path.split('?')[0]}`, requestHash: sha256Hex(rawBody) }
+  const { path, query } = normalisedTarget(event.path)
+  const route = `${event.method} ${path}`.slice(0, 200)
+  // The method, the path, the query and the body all make the request: the same key with any of them changed is
+  // a different request (422), not a replay.
+  return { scope, key, route, requestHash: sha256Hex(`${event.method}\n${path}\n${query}\n${rawBody}`) }
+}
+
+/**
+ * The path and query of a request as one resource: percent-decoding undone where safe, repeated and trailing slashes
+ * dropped, letters in lower case (codes and ids are not case-sensitive), query parameters sorted by name.
+ */
+export function normalisedTarget(target: string): { path: string, query: string } {
+  const [rawPath = '', rawQuery = ''] = target.split(/\?(.*)/s, 2)
+  let path = rawPath
+  try {
+    path = decodeURIComponent(rawPath)
+  }
+  catch { /* keep it as sent */ }
+  path = path.replace(/\/{2,}/g, '/').replace(/(.)\/$/, '$1').toLowerCase()
+  const params = [...new URLSearchParams(rawQuery)].sort(([a, av], [b, bv]) => (a < b ? -1 : a > b ? 1 : av < bv ? -1 : av > bv ? 1 : 0))
+  return { path, query: new URLSearchParams(params).toString() }
 }
 
 /** The first answer to this key, when there is one; 422 when the key was used for a different request. */

@@ -1,27 +1,25 @@
 import { z } from 'zod'
 import { airfieldCodeSchema } from './airfield-schema'
+import { calendarDateSchema, idSchema, instantSchema, INT_ID_MAX, parseInstant } from './input-schemas'
 
 // Route pieces for briefings, trends and read receipts (server and client read the same messages).
-const isoTime = z.string().trim().refine(s => /^\d{4}-\d{2}-\d{2}T/.test(s) && !Number.isNaN(Date.parse(s)),
-  { message: 'must be an ISO 8601 time such as 2026-03-01T06:00:00Z' }).transform(s => new Date(s))
+const isoTime = z.string().trim().pipe(instantSchema('at')).transform(s => new Date((parseInstant(s) as { ms: number }).ms))
 
 export const briefingQuerySchema = z.object({
   at: isoTime.optional(),
-  profile: z.coerce.number({ invalid_type_error: 'must be a profile id' }).int('must be a whole number')
-    .positive('must be a positive profile id').optional(),
+  profile: idSchema('profile').optional(),
 }).strict()
 
 export const trendQuerySchema = z.object({
-  date: z.string().trim().regex(/^\d{4}-\d{2}-\d{2}$/, 'must be a UTC date such as 2026-03-01')
-    .refine(s => !Number.isNaN(Date.parse(`${s}T00:00:00Z`)), 'is not a real date').optional(),
+  date: z.string().trim().pipe(calendarDateSchema('date')).optional(),
 }).strict()
 
 export const receiptBodySchema = z.object({
   profileId: z.number({ required_error: 'profileId is required', invalid_type_error: 'profileId must be a number' })
-    .int('profileId must be a whole number').positive('profileId must be positive'),
+    .int('profileId must be a whole number').positive('profileId must be positive').max(INT_ID_MAX, 'profileId is not a profile'),
 }).strict()
 
 export const receiptQuerySchema = z.object({
   airfield: airfieldCodeSchema.optional(),
-  profile: z.coerce.number().int().positive('must be a positive profile id').optional(),
+  profile: idSchema('profile').optional(),
 }).strict()

@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { instantSchema, pageSchema, pageSizeSchema } from './input-schemas'
 
 // The public profile JSON shape (README "Profile JSON"), shared by the API, the import parsers and the entry form.
 // The wind engine's normaliseProfile stays the authority on whole-profile rules (ground, duplicates, surface gust).
@@ -56,8 +57,8 @@ export const profileLevelSchema = z.object({
 })
 export type ProfileLevelInput = z.infer<typeof profileLevelSchema>
 
-const utcInstant = (label: string) => z.string({ required_error: `${label} is required` })
-  .datetime({ offset: true, message: `${label} must be an ISO 8601 date and time, e.g. 2026-05-01T06:00:00Z` })
+// A real date and time with a real offset, in 1970 to 2100 (shared/utils/input-schemas.ts).
+const utcInstant = (label: string) => instantSchema(label)
 
 export const profileLevelsSchema = z.array(profileLevelSchema, { required_error: 'levels is required' })
   .min(2, 'At least two levels are needed').max(PROFILE_MAX_LEVELS, `At most ${PROFILE_MAX_LEVELS} levels`)
@@ -108,14 +109,14 @@ export function levelHeightOf(level: ProfileLevelInput): { value: number, unit: 
 
 /** Query of GET /api/airfields/{code}/profiles. */
 export const profileListQuerySchema = z.object({
-  from: z.string().datetime({ offset: true, message: 'from must be an ISO 8601 date and time' }).optional(),
-  to: z.string().datetime({ offset: true, message: 'to must be an ISO 8601 date and time' }).optional(),
+  from: instantSchema('from').optional(),
+  to: instantSchema('to').optional(),
   source: z.enum(PROFILE_SOURCES).optional(),
   status: z.enum(['active', 'superseded', 'withdrawn']).optional(),
   sort: z.enum(['validFrom', 'validTo', 'createdAt', 'source', 'status']).default('validFrom'),
   order: z.enum(['asc', 'desc']).default('desc'),
-  page: z.coerce.number().int().min(1).default(1),
-  pageSize: z.coerce.number().int().min(1).max(200).default(25),
+  page: pageSchema,
+  pageSize: pageSizeSchema(200, 25),
 })
 
 /** Query of GET /api/audit. */
@@ -124,10 +125,10 @@ export const auditQuerySchema = z.object({
   action: z.string().trim().max(64).optional(),
   actor: z.string().trim().max(160).optional(),
   q: z.string().trim().max(100).optional(),
-  from: z.string().datetime({ offset: true, message: 'from must be an ISO 8601 date and time' }).optional(),
-  to: z.string().datetime({ offset: true, message: 'to must be an ISO 8601 date and time' }).optional(),
-  page: z.coerce.number().int().min(1).default(1),
-  pageSize: z.coerce.number().int().min(1).max(200).default(50),
+  from: instantSchema('from').optional(),
+  to: instantSchema('to').optional(),
+  page: pageSchema,
+  pageSize: pageSizeSchema(200, 50),
 })
 
 export const withdrawSchema = z.object({

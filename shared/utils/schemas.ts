@@ -1,8 +1,9 @@
 import { z } from 'zod'
 import { ROLES } from './roles'
+import { idSchema, pageSchema, pageSizeSchema } from './input-schemas'
 
 // Zod pieces shared by server routes and client forms, so a field error reads the same on both sides.
-export const idParamSchema = z.object({ id: z.coerce.number().int().positive({ message: 'must be a positive whole number' }) })
+export const idParamSchema = z.object({ id: idSchema() })
 
 export const emailSchema = z.string({ required_error: 'E-mail is required' }).trim().toLowerCase()
   .email('Enter a valid e-mail address').max(254)
@@ -31,6 +32,6 @@ export const updateUserSchema = z.object({
 }).refine(v => Object.keys(v).length > 0, { message: 'Nothing to change' })
 
 export const paginationSchema = z.object({
-  page: z.coerce.number().int().min(1).default(1),
-  pageSize: z.coerce.number().int().min(1).max(200).default(25),
+  page: pageSchema,
+  pageSize: pageSizeSchema(200, 25),
 })

@@ -75,7 +75,8 @@ const MATRIX: Record<string, Access & { fresh?: boolean }> = {
   'POST /api/users': roles('admin'),
   'PATCH /api/users/[id]': roles('admin'),
   'POST /api/wind/coded': roles('dispatcher', 'admin'),
-  'POST /api/wind/preview': filer,
+  // Any signed-in user previews (the entry form); a feed may too, with its token.
+  'POST /api/wind/preview': { roles: 'any', token: true },
 }
 
 /** Every route file under server/api as "METHOD /api/path" (index files name their folder). */
@@ -119,7 +120,7 @@ beforeAll(async () => {
   for (const r of ROLES) clients[r] = await signedIn(r)
   const made = await clients.dispatcher.post('/api/tokens', { name: `matrix-${Date.now()}` })
   expect(made.status).toBe(201)
-  tokenHeader = { authorization: `Bearer ${made.body.token}` }
+  tokenHeader = { authorization: `Bearer ${made.body.token.secret}` }
   clients['api token'] = new ApiClient()
 })
 
@@ -142,6 +143,8 @@ describe('route x caller matrix', () => {
         if (access.fresh && caller !== 'signed out' && caller !== 'api token') client = await signedIn(caller)
         const body = method === 'GET' || method === 'DELETE' ? undefined : {}
         const res = await client.request(method, concrete(path), body, caller === 'api token' ? tokenHeader : {})
+        // Signing out everywhere ended the shared client's session of that role too: sign it in again.
+        if (access.fresh && caller !== 'signed out' && caller !== 'api token') clients[caller] = await signedIn(caller)
         const want = expected(access, caller)
         const label = `${route} as ${caller}: ${res.status} ${JSON.stringify(res.body)?.slice(0, 160)}`
         expect(res.status, label).toBeLessThan(500)

@@ -105,12 +105,15 @@ describe('push endpoints: checked again when sending', () => {
     }
     // Wind 220° at 30 kt on runway 18: crosswind 19.3 kt (FAA crosswind chart example), over the 10 kt limit.
     expect((await dispatcher.post(`/api/airfields/${code}/profiles`, windProfile(220, 30))).status).toBe(201)
-    const [[sub1], [sub2]] = await Promise.all([targetUrl(), 'https://localhost/push/x'].map(e =>
-      db.query('SELECT id FROM push_subscriptions WHERE endpoint = ? AND user_id = ?', [e, pilot.id]))) as unknown as [{ id: number }[]][]
-    const rows = await waitFor('both push deliveries to fail', async () => {
-      const [r] = await db.query('SELECT state, last_error AS lastError, push_subscription_id AS sub FROM outbox WHERE push_subscription_id IN (?, ?)', [sub1![0]!.id, sub2![0]!.id]) as unknown as [{ state: string, lastError: string | null }[]]
-      return r.length === 2 && r.every(x => x.state === 'failed') ? r : null
+    // One delivery per crossing and device; every one fails at once, before any connection.
+    const rows = await waitFor('the push deliveries to fail', async () => {
+      const [r] = await db.query(`SELECT o.state, o.last_error AS lastError, s.endpoint FROM outbox o JOIN push_subscriptions s ON s.id = o.push_subscription_id
+        WHERE s.user_id = ? AND o.channel = 'push'`, [pilot.id]) as unknown as [{ state: string, lastError: string | null, endpoint: string }[]]
+      return r.length >= 2 && r.every(x => x.state === 'failed') ? r : null
     })
+    expect(new Set(rows.map(r => r.endpoint)).size).toBe(2)
+    expect(rows.find(r => r.endpoint.startsWith('https://localhost'))!.lastError).toContain('resolves to a loopback address (127.0.0.1)')
+    expect(rows.find(r => r.endpoint.startsWith('http://127.0.0.1'))!.lastError).toContain('must be an https: URL')
     for (const r of rows) {
       expect(r.lastError).toMatch(/^not sent: /)
       expect(r.lastError).not.toContain(SECRET_REPLY)

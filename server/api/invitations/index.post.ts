@@ -16,10 +16,15 @@ export default defineEventHandler(async (event) => {
     if (existing?.passwordHash) throw createError({ statusCode: 409, statusMessage: `${email} already has an account`, data: { issues: [{ field: 'email', message: 'already has an account' }] } })
     let id = existing?.id
     if (!id) id = (await tx.insert(schema.users).values({ email, name, role, passwordHash: null }).$returningId())[0]!.id
+    // Inviting a pending person again takes the new name and role, so the answer is what is stored.
+    else await tx.update(schema.users).set({ name, role, updatedAt: new Date() }).where(eq(schema.users.id, id))
     const { expiresAt } = await issueToken(tx, 'invitation', { id: id!, email, name }, appUrl, admin)
-    await recordAudit(tx, { user: admin }, existing ? 'user.reinvite' : 'user.invite', 'user', id!, { email, role })
-    return { id: id!, expiresAt }
+    await recordAudit(tx, { user: admin }, existing ? 'user.reinvite' : 'user.invite', 'user', id!,
+      existing ? { email, role, before: { name: existing.name, role: existing.role } } : { email, role })
+    const [stored] = await tx.select().from(schema.users).where(eq(schema.users.id, id!))
+    return { user: stored!, expiresAt }
   })
   setResponseStatus(event, 201)
-  return { user: { id: result.id, email, name, role }, expiresAt: result.expiresAt.toISOString() }
+  const { user } = result
+  return { user: { id: user.id, email: user.email, name: user.name, role: user.role }, expiresAt: result.expiresAt.toISOString() }
 })

@@ -58,7 +58,8 @@ export function parseProfileCsv(text: string): ParsedLevels {
     if (!header) {
       separator = raw.includes(';') && !raw.includes(',') ? ';' : ','
       header = cells(raw, separator).map(c => c.toLowerCase())
-      const unknown = header.filter(c => !(c in COLUMN_KEYS))
+      // Own keys only: `__proto__` or `constructor` are not columns, whatever Object.prototype holds.
+      const unknown = header.filter(c => !Object.hasOwn(COLUMN_KEYS, c))
       if (unknown.length) issues.push({ line: lineNo, field: 'header', message: `unknown column ${unknown.map(u => `"${u}"`).join(', ')}; the columns are ${CSV_COLUMNS.join(', ')}` })
       for (const g of GROUPS) {
         const present = g.columns.filter(c => header!.includes(c))

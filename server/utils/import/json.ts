@@ -2,6 +2,7 @@
 // so that problems name the line. Plain TypeScript.
 import type { ProfileLevelInput } from '../../../shared/utils/profile-schema'
 import type { ImportIssue } from './csv'
+import { JSON_MAX_DEPTH, jsonDepth } from '../request-guard'
 
 export type ParsedJsonProfile = {
   header: Record<string, unknown>
@@ -142,6 +143,10 @@ export function jsonErrorOffset(text: string): number {
 }
 
 export function parseProfileJson(text: string): ParsedJsonProfile {
+  // A profile nests three deep (profile, levels, level); a far deeper file is refused before anything walks it.
+  if (jsonDepth(text, JSON_MAX_DEPTH) > JSON_MAX_DEPTH) {
+    return { header: {}, levels: [], lines: [], issues: [{ line: 1, field: 'file', message: `nests deeper than ${JSON_MAX_DEPTH} levels of arrays and objects` }] }
+  }
   let value: unknown
   try {
     value = JSON.parse(text.replace(/^\uFEFF/, ''))

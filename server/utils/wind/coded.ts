@@ -1,5 +1,6 @@
 import { WindValidationError } from './errors'
 import { M_PER_FT, MPS_PER_KT } from './units'
+import { MAX_SPEED_KT } from './validate'
 import type {
   CodedReport, CodedReportKind, CodedRunwayShear, CodedShearLevel, CodedSurfaceWind, LevelInput, ValidationIssue,
 } from './types'
@@ -35,6 +36,8 @@ function parseWind(group: string, issues: ValidationIssue[], line: number | unde
   // P99KT / P49MPS: the speed is more than the figure given.
   const speedAtLeast = plus === 'P'
   const speedKt = toKt(speedAtLeast ? rawSpeed + 1 : rawSpeed, unit)
+  // The same bound as a filed level (validate.ts): a coded 999 kt is a typing slip, not a wind.
+  if (speedKt > MAX_SPEED_KT) return bad(`has a speed above ${MAX_SPEED_KT} kt`)
   const wind: CodedSurfaceWind = {
     group,
     directionDeg,
@@ -48,6 +51,7 @@ function parseWind(group: string, issues: ValidationIssue[], line: number | unde
     const gustAtLeast = gustPlus === 'P'
     if (!gustAtLeast && rawGust <= rawSpeed) return bad('has a gust not above the mean speed')
     wind.gustKt = toKt(gustAtLeast ? rawGust + 1 : rawGust, unit)
+    if (wind.gustKt > MAX_SPEED_KT) return bad(`has a gust above ${MAX_SPEED_KT} kt`)
     wind.gustAtLeast = gustAtLeast
   }
   return wind
@@ -106,6 +110,10 @@ export function parseCodedReport(line: string, lineNumber?: number): CodedReport
       const unit = m[4] as 'KT' | 'MPS'
       if (directionDeg > 360) {
         issues.push({ line: lineNumber, field: 'shearGroup', message: `low-level wind shear group "${t}" has a direction above 360°` })
+        continue
+      }
+      if (toKt(Number(m[3]), unit) > MAX_SPEED_KT) {
+        issues.push({ line: lineNumber, field: 'shearGroup', message: `low-level wind shear group "${t}" has a speed above ${MAX_SPEED_KT} kt` })
         continue
       }
       shearLevels.push({ group: t, heightAglFt, heightAglM: heightAglFt * M_PER_FT, directionDeg, speedKt: toKt(Number(m[3]), unit), unit })
