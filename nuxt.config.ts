@@ -33,6 +33,9 @@ export default defineNuxtConfig({
       dirsScanOptions: { fileFilter: (file: string) => !/server[/\\]utils[/\\][^/\\]+[/\\]/.test(file) },
     },
   },
+  typescript: { strict: true, typeCheck: false },
+  telemetry: false,
+  eslint: { config: { stylistic: true } },
   // nuxt-security 2.5.1: the headers and the CSP with a per-response nonce. Its defaults changed for Veerline: no
   // CORS answer at all (nothing but our own pages calls the API), no HSTS or upgrade-insecure-requests here (both are
   // added at run time only when the public address is https: server/plugins/security.ts), frame-ancestors 'none'
@@ -82,8 +85,5 @@ export default defineNuxtConfig({
       },
     },
   },
-  typescript: { strict: true, typeCheck: false },
-  telemetry: false,
-  eslint: { config: { stylistic: true } },
   tailwindcss: { cssPath: '~/assets/css/tailwind.css', viewer: false },
 })

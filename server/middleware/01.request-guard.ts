@@ -58,7 +58,7 @@ export default defineEventHandler(async (event) => {
     })
   }
   // h3's readRawBody and readBody take a body already read from here.
-  ;(event as H3Event & { _requestBody?: Buffer })._requestBody = body
+  ;(event as unknown as { _requestBody?: Buffer })._requestBody = body
 })
 
 function headerText(value: string | string[] | undefined): string | undefined {

@@ -5,7 +5,7 @@
  */
 export function safeNextPath(next: unknown): string | null {
   if (typeof next !== 'string' || !next.startsWith('/') || next.length > 2000) return null
-  if (/^\/[/\\]/.test(next) || /[\u0000-\u001F\u007F]/.test(next)) return null
+  if (/^\/[/\\]/.test(next) || [...next].some(ch => ch.charCodeAt(0) < 0x20 || ch.charCodeAt(0) === 0x7F)) return null
   try {
     const base = 'http://veerline.invalid'
     const url = new URL(next, base)

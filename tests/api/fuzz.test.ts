@@ -7,7 +7,8 @@
 import fc from 'fast-check'
 import mysql from 'mysql2/promise'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { ApiClient, signedIn } from '../support/api'
+import type { ApiClient } from '../support/api'
+import { signedIn } from '../support/api'
 import { createTestAirfield } from '../support/alerts'
 
 const SEED = Number(process.env.VEERLINE_FUZZ_SEED ?? 20261202)
@@ -123,7 +124,7 @@ describe('HTTP fuzzing: no 5xx, nothing half-saved', () => {
 
   property('wind preview', anyJson.map(body => ({ method: 'POST', path: '/api/wind/preview', body })))
 
-  property('filing', fc.tuple(anyJson, fc.option(fc.string({ minLength: 1, maxLength: 220 }))).map(([body, key]) => ({
+  property('filing', fc.tuple(anyJson, fc.option(fc.string({ minLength: 1, maxLength: 220 }))).map(([body, key]): Req => ({
     method: 'POST', path: `/api/airfields/${code}/profiles`, body, write: true, headers: key === null ? {} : { 'idempotency-key': key },
   })))
 
@@ -159,18 +160,18 @@ describe('HTTP fuzzing: no 5xx, nothing half-saved', () => {
   property('list queries and ids', fc.tuple(fc.constantFrom('profiles', 'alerts', 'audit', 'trend', 'profile', 'deliveries', 'briefing'),
     queryValue, queryValue, queryValue, fc.constantFrom('validFrom', 'source', 'nope', '__proto__'), fc.constantFrom('asc', 'desc', 'up'), fc.boolean())
     .map(([what, a, b, c, sort, order, real]) => {
-    const q = `page=${enc(a)}&pageSize=${enc(b)}&from=${enc(c)}&to=${enc(a)}&sort=${enc(sort)}&order=${enc(order)}`
-    const paths: Record<string, string> = {
-      profiles: `/api/airfields/${code}/profiles?${q}`,
-      alerts: `/api/alerts?airfield=${enc(c)}&state=${enc(b)}&limit=${enc(a)}`,
-      audit: `/api/audit?${q}`,
-      trend: `/api/airfields/${code}/trend?date=${enc(c)}`,
-      profile: `/api/profiles/${real ? profileId : enc(a)}`,
-      deliveries: `/api/alerts/deliveries?state=${enc(b)}&limit=${enc(a)}`,
-      briefing: `/api/airfields/${code}/briefing?profile=${enc(a)}&at=${enc(c)}`,
-    }
-    return { method: 'GET', path: paths[what]! }
-  }), () => admin)
+      const q = `page=${enc(a)}&pageSize=${enc(b)}&from=${enc(c)}&to=${enc(a)}&sort=${enc(sort)}&order=${enc(order)}`
+      const paths: Record<string, string> = {
+        profiles: `/api/airfields/${code}/profiles?${q}`,
+        alerts: `/api/alerts?airfield=${enc(c)}&state=${enc(b)}&limit=${enc(a)}`,
+        audit: `/api/audit?${q}`,
+        trend: `/api/airfields/${code}/trend?date=${enc(c)}`,
+        profile: `/api/profiles/${real ? profileId : enc(a)}`,
+        deliveries: `/api/alerts/deliveries?state=${enc(b)}&limit=${enc(a)}`,
+        briefing: `/api/airfields/${code}/briefing?profile=${enc(a)}&at=${enc(c)}`,
+      }
+      return { method: 'GET', path: paths[what]! }
+    }), () => admin)
 
   it('sent at least 2,000 generated requests, none answered 5xx', () => {
     expect(tally.requests).toBeGreaterThanOrEqual(Math.min(2000, RUNS * 7))

@@ -8,7 +8,8 @@ import type { AddressInfo } from 'node:net'
 import { createECDH, randomBytes } from 'node:crypto'
 import mysql from 'mysql2/promise'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { ApiClient, signedIn } from '../support/api'
+import type { ApiClient } from '../support/api'
+import { signedIn } from '../support/api'
 import { createTestAirfield, newUser, waitFor, windProfile } from '../support/alerts'
 
 let admin: ApiClient, safety: ApiClient, dispatcher: ApiClient

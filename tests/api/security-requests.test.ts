@@ -131,7 +131,9 @@ function rawPost(path: string, headers: Record<string, string>, chunks: Buffer[]
     const req = httpRequest({ host: url.hostname, port: url.port, path: url.pathname + url.search, method: 'POST', headers }, (res) => {
       answered = true
       let body = ''
-      res.on('data', (d) => { body += d })
+      res.on('data', (d) => {
+        body += d
+      })
       res.on('end', () => resolve({ status: res.statusCode!, body }))
       res.on('error', () => resolve({ status: res.statusCode!, body }))
     })

@@ -27,7 +27,7 @@ export class ApiClient {
 
   async request<T = any>(method: string, path: string, body?: unknown, headers: Record<string, string> = {}): Promise<ApiResponse<T>> {
     // Like a browser on one of our pages: a write names its origin (the server refuses cookie writes without it).
-    const origin = method === 'GET' || method === 'HEAD' ? {} : { origin: new URL(this.baseUrl).origin }
+    const origin: Record<string, string> = method === 'GET' || method === 'HEAD' ? {} : { origin: new URL(this.baseUrl).origin }
     const h: Record<string, string> = { 'x-forwarded-for': this.address, ...origin, ...headers }
     if (this.cookie) h.cookie = this.cookie
     let payload: BodyInit | undefined

@@ -1,9 +1,10 @@
 import { z } from 'zod'
+import { decimalIntSchema } from '#shared/utils/input-schemas'
 
 const querySchema = z.object({
   airfield: z.string().trim().regex(/^[A-Za-z]{4}$/, 'airfield must be a four-letter code').optional(),
   state: z.enum(['active', 'cleared', 'superseded', 'expired']).optional(),
-  limit: z.coerce.number().int().min(1).max(500).default(100),
+  limit: decimalIntSchema('limit', 1, 500).default(100),
 })
 
 // The alert log: every alert with each of its deliveries (state, attempts, last error). Safety officers and admins.

@@ -1,10 +1,11 @@
 import { z } from 'zod'
+import { decimalIntSchema } from '#shared/utils/input-schemas'
 import { readMailbox } from '../../utils/alerts/mailbox'
 import { maskTokenLinks, standinsEnabled } from '../../utils/alerts/standins'
 
 const querySchema = z.object({
   to: z.string().trim().max(254).optional(),
-  limit: z.coerce.number().int().min(1).max(1000).default(200),
+  limit: decimalIntSchema('limit', 1, 1000).default(200),
   reveal: z.enum(['0', '1', 'true', 'false']).optional(),
 })
 

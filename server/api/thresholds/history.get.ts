@@ -1,6 +1,7 @@
 import { z } from 'zod'
+import { decimalIntSchema } from '#shared/utils/input-schemas'
 
-const querySchema = z.object({ airfield: z.string().trim().regex(/^[A-Za-z]{4}$/, 'airfield must be a four-letter code').optional(), limit: z.coerce.number().int().min(1).max(500).default(100) })
+const querySchema = z.object({ airfield: z.string().trim().regex(/^[A-Za-z]{4}$/, 'airfield must be a four-letter code').optional(), limit: decimalIntSchema('limit', 1, 500).default(100) })
 
 // Who changed which limits when, why, and from what to what.
 export default defineEventHandler(async (event) => {

@@ -32,9 +32,9 @@ export function sessionLimits(env: Record<string, string | undefined> = process.
 
 export const sessionIdHash = (sid: string) => createHash('sha256').update(sid).digest('hex')
 
-export type SessionCheck =
-  | { ok: true, touch: boolean, cookieMaxAgeS: number }
-  | { ok: false, reason: 'ended' | 'disabled' | 'idle' | 'expired', message: string }
+export type SessionCheck
+  = | { ok: true, touch: boolean, cookieMaxAgeS: number }
+    | { ok: false, reason: 'ended' | 'disabled' | 'idle' | 'expired', message: string }
 
 /** Whether a stored session still holds at `now`; pure, so the limits are tested without a clock. */
 export function checkSession(row: { lastSeenAt: Date, expiresAt: Date } | undefined, user: Pick<User, 'disabled'> | undefined,
@@ -51,7 +51,7 @@ export function checkSession(row: { lastSeenAt: Date, expiresAt: Date } | undefi
 export type SessionData = { user?: { id: number }, sid?: string }
 
 /** Starts a session for the user: a new row and a new sealed cookie (replacing whatever the browser had). */
-export async function startSession(event: H3Event, user: User, publicUser: Record<string, unknown>, db: DB | Tx = useDB()) {
+export async function startSession(event: H3Event, user: User, publicUser: Pick<User, 'id' | 'email' | 'name' | 'role'>, db: DB | Tx = useDB()) {
   const limits = sessionLimits()
   const now = Date.now()
   const sid = randomBytes(32).toString('base64url')

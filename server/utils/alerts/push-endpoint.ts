@@ -32,9 +32,9 @@ export function hostAllowed(host: string, allowList: string[]): boolean {
 
 export type EndpointRules = { allowList: string[], standinOrigin: string | null }
 
-export type EndpointVerdict =
-  | { ok: true, url: URL, standin: boolean }
-  | { ok: false, message: string }
+export type EndpointVerdict
+  = | { ok: true, url: URL, standin: boolean }
+    | { ok: false, message: string }
 
 /** Whether an endpoint may be stored and sent to (before any name resolution). */
 export function checkPushEndpoint(endpoint: string, rules: EndpointRules): EndpointVerdict {

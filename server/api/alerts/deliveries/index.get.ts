@@ -1,9 +1,10 @@
 import { z } from 'zod'
+import { decimalIntSchema } from '#shared/utils/input-schemas'
 
 const querySchema = z.object({
   state: z.enum(['queued', 'sent', 'failed']).optional(),
   kind: z.enum(['alert-raised', 'alert-cleared', 'invitation', 'password-reset']).optional(),
-  limit: z.coerce.number().int().min(1).max(1000).default(200),
+  limit: decimalIntSchema('limit', 1, 1000).default(200),
 })
 
 // The outbox itself, newest first: every notice (alerts, invitations, resets) and how its delivery stands.

@@ -52,10 +52,35 @@ export default defineEventHandler(async (event) => {
     return { levels: parsed.levels, lines: parsed.lines, header: parsed.header, issues, warnings }
   }
 
+  // Filing a file honours Idempotency-Key like the JSON route; the query (format and header fields) is part of it.
+  const claim = idempotencyClaim(event, actor, text)
+  const replay = async () => {
+    const first = claim && await storedAnswer(claim)
+    if (!first) return null
+    setResponseStatus(event, first.status)
+    setHeader(event, 'Idempotent-Replayed', 'true')
+    return first.body
+  }
+  const replayed = await replay()
+  if (replayed) return replayed
   if (parsed.issues.length) throw profileIssuesError(parsed.issues, `The file was not filed, nothing was saved`)
-  const filed = await useDB().transaction(tx => fileProfile(tx, {
-    airfield, input, actor, entryMethod: actor.token ? 'api' : 'file', lineOf, details: { format, fileName: fileName ?? null },
-  }))
-  setResponseStatus(event, 201)
-  return filed
+  try {
+    const filed = await useDB().transaction(async (tx) => {
+      const answer = await fileProfile(tx, {
+        airfield, input, actor, entryMethod: actor.token ? 'api' : 'file', lineOf, details: { format, fileName: fileName ?? null },
+      })
+      if (claim) await storeAnswer(tx, claim, 201, answer)
+      return answer
+    })
+    setResponseStatus(event, 201)
+    return filed
+  }
+  catch (err) {
+    // A twin request with the same key committed first: answer as it was answered.
+    if (claim && isDuplicateKeyError(err)) {
+      const again = await replay()
+      if (again) return again
+    }
+    throw err
+  }
 })

@@ -1,7 +1,8 @@
 import { z } from 'zod'
 import { airfieldCodeSchema, runwaySchema } from '#shared/utils/airfield-schema'
+import { idSchema } from '#shared/utils/input-schemas'
 
-const paramsSchema = z.object({ code: airfieldCodeSchema, id: z.coerce.number().int().positive() })
+const paramsSchema = z.object({ code: airfieldCodeSchema, id: idSchema('runway id') })
 
 // Replaces a runway's length and both ends (the ends are edited together so the pair stays consistent).
 export default defineEventHandler(async (event) => {
