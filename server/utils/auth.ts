@@ -3,6 +3,9 @@ import type { RoleName } from '#shared/utils/roles'
 import type { User } from '../db/schema'
 import { sessionUserOrEnd } from '../domain/accounts/session-store'
 
+// Who may file (a feed's API token or a signed-in dispatcher or admin); its body moves here from the accounts module.
+export { requireFiler } from '../domain/accounts/api-tokens'
+
 /**
  * Who is asking: the signed-in user as the database knows them now, through a session that still holds
  * (server/domain/accounts/session-store.ts). An ended, idle, expired or disabled user's session is cleared and

@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { decimalIntSchema } from '#shared/utils/input-schemas'
+import { airfieldByCode } from '../../domain/profiles/analysis'
 
 const querySchema = z.object({
   airfield: z.string().trim().regex(/^[A-Za-z]{4}$/, 'airfield must be a four-letter code').optional(),

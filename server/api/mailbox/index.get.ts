@@ -1,7 +1,7 @@
 import { z } from 'zod'
 import { decimalIntSchema } from '#shared/utils/input-schemas'
-import { readMailbox } from '../../utils/alerts/mailbox'
-import { maskTokenLinks, standinsEnabled } from '../../utils/alerts/standins'
+import { readMailbox } from '../../domain/standins/mailbox'
+import { maskTokenLinks, standinsEnabled } from '../../domain/alerts/standins'
 
 const querySchema = z.object({
   to: z.string().trim().max(254).optional(),

@@ -1,5 +1,5 @@
-import { pushStandinUrl } from '../../utils/alerts/push-standin'
-import { standinsEnabled } from '../../utils/alerts/standins'
+import { pushStandinUrl } from '../../domain/standins/push-device'
+import { standinsEnabled } from '../../domain/alerts/standins'
 
 // What the push-service stand-in received (verified and decrypted) for the signed-in user's simulated devices.
 export default defineEventHandler(async (event) => {

@@ -1,6 +1,6 @@
 import { z } from 'zod'
-import { pushStandinUrl } from '../../utils/alerts/push-standin'
-import { standinsEnabled } from '../../utils/alerts/standins'
+import { pushStandinUrl } from '../../domain/standins/push-device'
+import { standinsEnabled } from '../../domain/alerts/standins'
 
 const bodySchema = z.object({ label: z.string().trim().min(1).max(120).default('Simulated device') })
 

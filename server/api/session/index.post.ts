@@ -1,6 +1,7 @@
 import { signInSchema } from '#shared/utils/schemas'
 import { credentialsMatch } from '../../domain/accounts/credentials'
 import { startSession } from '../../domain/accounts/session-store'
+import { clientAddress, recordSignInFailure, signInWaitS } from '../../domain/accounts/sign-in-limit'
 
 // Signing in is the one route open to a signed-out caller.
 export default defineEventHandler(async (event) => {

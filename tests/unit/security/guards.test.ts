@@ -1,7 +1,7 @@
 // Pure security checks: push endpoint rules and address ranges, the Origin verdict, JSON depth, BOM, session limits
 // and equal-work sign-in. References beside each table.
 import { describe, expect, it } from 'vitest'
-import { checkPushEndpoint, DEFAULT_PUSH_HOSTS, hostAllowed, nonPublicReason, shortFailure } from '../../../server/utils/alerts/push-endpoint'
+import { checkPushEndpoint, DEFAULT_PUSH_HOSTS, hostAllowed, nonPublicReason, shortFailure } from '../../../server/domain/alerts/push-endpoint'
 import { jsonDepth, originOf, originVerdict, stripBom, mediaType, isJsonType, bodyLimitFor, acceptedBodyTypes } from '../../../server/utils/request-guard'
 import { checkSession, sessionLimits } from '../../../server/domain/accounts/session-store'
 import { credentialsMatch } from '../../../server/domain/accounts/credentials'

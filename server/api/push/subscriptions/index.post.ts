@@ -1,6 +1,6 @@
 import { z } from 'zod'
-import { checkPushEndpoint } from '../../../utils/alerts/push-endpoint'
-import { endpointRules } from '../../../utils/alerts/push'
+import { checkPushEndpoint } from '../../../domain/alerts/push-endpoint'
+import { endpointRules } from '../../../domain/alerts/push'
 
 const bodySchema = z.object({
   endpoint: z.string({ required_error: 'endpoint is required' }).max(500, 'endpoint must be at most 500 characters')

@@ -1,6 +1,8 @@
 import { z } from 'zod'
 import { airfieldCodeSchema, runwaySchema } from '#shared/utils/airfield-schema'
 import { idSchema } from '#shared/utils/input-schemas'
+import { airfieldDetail, runwayEndValues } from '../../../../domain/airfields'
+import { airfieldByCode } from '../../../../domain/profiles/analysis'
 
 const paramsSchema = z.object({ code: airfieldCodeSchema, id: idSchema('runway id') })
 
