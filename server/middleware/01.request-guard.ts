@@ -2,9 +2,10 @@ import type { H3Event } from 'h3'
 import type { IncomingMessage } from 'node:http'
 
 // Every /api/ request passes here before its route: answers are never cached, and a write must come from our own
-// origin (unless it is a feed's bearer-token request without a session cookie), declare a body type the route
-// takes, stay under the route's size (refused with 413 before the body is read in full), and nest its JSON at most
-// JSON_MAX_DEPTH deep. The body read here (without a byte order mark) is what the route reads again.
+// origin (unless it is a feed's bearer-token request without a session cookie). Its body, when the route reads it
+// (after checking who is asking), must be of a type the route takes (415), stay under the route's size (413, before
+// the body is read in full; at once when the declared length says so) and nest its JSON at most JSON_MAX_DEPTH deep
+// (422); a leading byte order mark is dropped.
 const UNSAFE = new Set(['POST', 'PUT', 'PATCH', 'DELETE'])
 
 export default defineEventHandler(async (event) => {
@@ -28,37 +29,45 @@ export default defineEventHandler(async (event) => {
   const chunked = /\bchunked\b/i.test(String(headers['transfer-encoding'] ?? ''))
   if (!chunked && (declared === null || declared === 0)) return
 
-  const type = mediaType(headers['content-type'])
-  const accepted = acceptedBodyTypes(pathname)
-  if (!accepted.some(t => t === type || (t === 'application/json' && isJsonType(type)))) {
-    throw createError({
-      statusCode: 415,
-      statusMessage: `Send the body as ${accepted.join(' or ')} (Content-Type was ${type || 'missing'})`,
-    })
-  }
-
   const limit = bodyLimitFor(pathname)
   const tooLarge = () => {
-    setResponseHeader(event, 'Connection', 'close')
-    event.node.req.resume()
-    setTimeout(() => event.node.req.socket?.destroy(), 5000).unref()
+    drainAndDrop(event.node.req)
     return createError({ statusCode: 413, statusMessage: `The request body is larger than the limit of ${formatBytes(limit)} for this route` })
   }
+  // A declared length over the limit is refused at once, whoever asks: nothing of the body is read.
   if (declared !== null && (!Number.isFinite(declared) || declared > limit)) throw tooLarge()
-  const raw = await readCapped(event.node.req, limit).catch(() => {
-    throw createError({ statusCode: 400, statusMessage: 'The request body did not arrive whole; send it again' })
-  })
-  if (raw === null) throw tooLarge()
-  const body = stripBom(raw)
-  if (isJsonType(type) && jsonDepth(body.toString('utf8'), JSON_MAX_DEPTH) > JSON_MAX_DEPTH) {
-    throw createError({
-      statusCode: 422,
-      statusMessage: `The JSON body nests deeper than ${JSON_MAX_DEPTH} levels; nothing was saved`,
-      data: { issues: [{ field: '(body)', message: `nests deeper than ${JSON_MAX_DEPTH} levels of arrays and objects` }] },
+
+  // The rest waits until the route reads its body, i.e. after it has checked who is asking (401 and 403 first).
+  const type = mediaType(headers['content-type'])
+  let reading: Promise<Buffer> | undefined
+  const read = async (): Promise<Buffer> => {
+    const accepted = acceptedBodyTypes(pathname)
+    if (!accepted.some(t => t === type || (t === 'application/json' && isJsonType(type)))) {
+      drainAndDrop(event.node.req)
+      throw createError({ statusCode: 415, statusMessage: `Send the body as ${accepted.join(' or ')} (Content-Type was ${type || 'missing'})` })
+    }
+    const raw = await readCapped(event.node.req, limit).catch(() => {
+      throw createError({ statusCode: 400, statusMessage: 'The request body did not arrive whole; send it again' })
     })
+    if (raw === null) throw tooLarge()
+    const body = stripBom(raw)
+    if (isJsonType(type) && jsonDepth(body.toString('utf8'), JSON_MAX_DEPTH) > JSON_MAX_DEPTH) {
+      throw createError({
+        statusCode: 422,
+        statusMessage: `The JSON body nests deeper than ${JSON_MAX_DEPTH} levels; nothing was saved`,
+        data: { issues: [{ field: '(body)', message: `nests deeper than ${JSON_MAX_DEPTH} levels of arrays and objects` }] },
+      })
+    }
+    return body
   }
-  // h3's readRawBody and readBody take a body already read from here.
-  ;(event as unknown as { _requestBody?: Buffer })._requestBody = body
+  // h3's readRawBody and readBody take the body from here (a thenable: nothing is read until a route asks).
+  const lazyBody = {
+    then<A, B>(ok: (b: Buffer) => A | PromiseLike<A>, fail?: (e: unknown) => B | PromiseLike<B>) {
+      reading ??= read()
+      return reading.then(ok, fail)
+    },
+  }
+  ;(event as unknown as { _requestBody?: unknown })._requestBody = lazyBody
 })
 
 function headerText(value: string | string[] | undefined): string | undefined {
@@ -77,7 +86,19 @@ function formatBytes(n: number) {
   return n >= 1024 * 1024 ? `${(n / 1024 / 1024).toFixed(0)} MB` : `${(n / 1024).toFixed(0)} KB`
 }
 
-/** The whole body, or null as soon as it grows past `limit` (the rest is not read). */
+/**
+ * Lets the rest of a refused body arrive and drops it, so the client can read the answer (closing a socket with
+ * unread data makes TCP reset the connection, and the answer is lost); at most 5 s of it.
+ */
+function drainAndDrop(req: IncomingMessage) {
+  req.removeAllListeners('data')
+  req.resume()
+  const timer = setTimeout(() => req.socket?.destroy(), 5000)
+  timer.unref()
+  req.once('end', () => clearTimeout(timer))
+}
+
+/** The whole body, or null as soon as it grows past `limit` (what follows is dropped, not kept). */
 function readCapped(req: IncomingMessage, limit: number): Promise<Buffer | null> {
   return new Promise((resolve, reject) => {
     const chunks: Buffer[] = []
@@ -91,14 +112,7 @@ function readCapped(req: IncomingMessage, limit: number): Promise<Buffer | null>
     }
     const onData = (chunk: Buffer) => {
       size += chunk.length
-      if (size > limit) {
-        // Nothing more is kept; what is still on its way is let through and dropped, so the client can read the
-        // 413 (closing on unread data makes TCP reset the connection before the answer arrives). At most 5 s of it.
-        req.off('data', onData)
-        req.resume()
-        setTimeout(() => req.socket?.destroy(), 5000).unref()
-        finish(null)
-      }
+      if (size > limit) finish(null)
       else chunks.push(chunk)
     }
     req.on('data', onData)
