@@ -11,6 +11,25 @@ async function health() {
   return { status: res.status, body: await res.json() }
 }
 
+describe('/healthz/live', () => {
+  it('answers 200 without the database: liveness is the process, readiness is /healthz', async () => {
+    const up = await fetch(`${BASE_URL}/healthz/live`)
+    expect(up.status).toBe(200)
+    expect(await up.json()).toEqual({ status: 'ok' })
+    db('stop')
+    try {
+      const down = await fetch(`${BASE_URL}/healthz/live`)
+      expect(down.status).toBe(200)
+      expect((await health()).status).toBe(503)
+    }
+    finally {
+      db('start')
+    }
+    // Leave the database answering for the next test.
+    for (let i = 0; i < 50 && (await health()).status !== 200; i++) await new Promise(r => setTimeout(r, 200))
+  })
+})
+
 describe('/healthz', () => {
   it('is 200 with the database up, 503 with a clear message while it is down, and recovers by itself', async () => {
     expect((await health()).status).toBe(200)

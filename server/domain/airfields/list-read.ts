@@ -1,0 +1,46 @@
+/**
+ * The airfield list in one query: every airfield with its runway end designators and the profile in force now
+ * and the next one (correlated subqueries on the profiles' (airfield, valid from) index), instead of two
+ * queries per airfield.
+ */
+import type { Airfield } from '../../db/schema'
+import { usePool } from '../../utils/db'
+import { airfieldSummary } from '../../utils/airfields'
+
+type Row = Record<string, any>
+
+const brief = (id: number | null, validFrom: Date | null, validTo: Date | null, source: string | null) =>
+  id == null ? null : { id, validFrom: validFrom!.toISOString(), validTo: validTo!.toISOString(), source: source! }
+
+const next = (col: string, where: string) =>
+  `(SELECT q.${col} FROM profiles q WHERE q.airfield_id = a.id AND q.status = 'active' AND ${where} ORDER BY q.valid_from ASC, q.id ASC LIMIT 1)`
+
+export async function readAirfieldList(now = new Date()) {
+  const current = `q.valid_from <= ? AND q.valid_to > ?`
+  const upcoming = `q.valid_from > ?`
+  const [rows] = await usePool().query(
+    `SELECT a.*,
+       (SELECT GROUP_CONCAT(e.designator ORDER BY e.designator SEPARATOR ',') FROM runway_ends e WHERE e.airfield_id = a.id) AS designators,
+       c.id AS c_id, c.valid_from AS c_valid_from, c.valid_to AS c_valid_to, c.source AS c_source,
+       n.id AS n_id, n.valid_from AS n_valid_from, n.valid_to AS n_valid_to, n.source AS n_source
+     FROM airfields a
+     LEFT JOIN profiles c ON c.id = ${next('id', current)}
+     LEFT JOIN profiles n ON n.id = ${next('id', upcoming)}
+     ORDER BY a.code`,
+    [now, now, now],
+  ) as [Row[], unknown]
+  return rows.map((r) => {
+    const a: Airfield = {
+      id: r.id, code: r.code, name: r.name, latitudeDeg: r.latitude_deg, longitudeDeg: r.longitude_deg, elevationM: r.elevation_m,
+      elevationUnit: r.elevation_unit, magVarOverrideDeg: r.mag_var_override_deg, magVarOverrideReason: r.mag_var_override_reason,
+      notes: r.notes, createdAt: r.created_at, updatedAt: r.updated_at,
+    }
+    const cur = brief(r.c_id, r.c_valid_from, r.c_valid_to, r.c_source)
+    const nxt = brief(r.n_id, r.n_valid_from, r.n_valid_to, r.n_source)
+    return {
+      ...airfieldSummary(a),
+      runwayEnds: r.designators ? String(r.designators).split(',') : [],
+      profileState: { state: cur ? 'current' as const : nxt ? 'upcoming' as const : 'none' as const, current: cur, next: nxt },
+    }
+  })
+}
