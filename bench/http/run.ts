@@ -60,7 +60,9 @@ async function phase(name: string, cookie: string, routes: [string, string, bool
 
 /** The JavaScript a page loads before it runs: its module entry and the modules it preloads, each gzipped. */
 async function upFrontJs(base: string, path: string, cookie: string | null) {
-  const html = await (await fetch(`${base}${path}`, { headers: cookie ? { cookie } : {} })).text()
+  const res = await fetch(`${base}${path}`, { headers: cookie ? { cookie } : {} })
+  const html = await res.text()
+  if (res.status !== 200) throw new Error(`${path} answered ${res.status}: ${html.slice(0, 300)}`)
   const srcs = new Set<string>()
   for (const m of html.matchAll(/<script[^>]+type="module"[^>]+src="([^"]+)"|<script[^>]+src="([^"]+)"[^>]+type="module"/g)) srcs.add((m[1] ?? m[2])!)
   for (const m of html.matchAll(/<link[^>]+rel="modulepreload"[^>]+href="([^"]+)"|<link[^>]+href="([^"]+)"[^>]+rel="modulepreload"/g)) srcs.add((m[1] ?? m[2])!)
@@ -96,7 +98,7 @@ async function main() {
   const rows = await phase('10 airfields', cookie, routes())
   const t0 = Date.now()
   await growTo(db, 200)
-  const [{ n }] = await connection.query('SELECT COUNT(*) AS n FROM airfields') as unknown as [[{ n: number }]]
+  const [[{ n }]] = await connection.query('SELECT COUNT(*) AS n FROM airfields') as unknown as [[{ n: number }]]
   console.log(`[bench:http] grown to ${n} airfields in ${((Date.now() - t0) / 1000).toFixed(0)} s`)
   rows.push(...await phase(`${n} airfields`, cookie, routes()))
   await connection.end()

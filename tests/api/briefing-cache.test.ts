@@ -61,6 +61,10 @@ describe('briefing answer at trade precision', () => {
     expect(b.levels[0].heightAglM).toBe(10)
     expect(b.levels.at(-1).heightAglM).toBe(10 + 4999 * 2)
     expect(b.runwayEnds[0].levels).toHaveLength(b.levels.length)
+    // The grid keeps its 30 m steps (0 to 600 m: 21) and the shown levels; each end's components follow it.
+    expect(b.grid.length).toBeLessThanOrEqual(21 + b.levels.length + 2)
+    expect(b.grid.filter((g: { heightAglM: number }) => g.heightAglM % 30 === 0).length).toBe(20) // 30 … 600 m (the lowest level is at 10 m)
+    expect(b.runwayEnds[0].byHeight).toHaveLength(b.grid.length)
     expect(b.display.note).toContain('of 5000 levels shown')
     expect(JSON.stringify(res.body).length).toBeLessThan(300 * 1024)
   })

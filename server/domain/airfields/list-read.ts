@@ -1,7 +1,7 @@
 /**
  * The airfield list in one query: every airfield with its runway end designators and the profile in force now
- * and the next one (correlated subqueries on the profiles' (airfield, valid from) index), instead of two
- * queries per airfield.
+ * and the next one (grouped in derived tables, the profiles through their (status, valid to) index), instead
+ * of two queries per airfield.
  */
 import type { Airfield } from '../../db/schema'
 import { usePool } from '../../utils/db'
@@ -12,22 +12,23 @@ type Row = Record<string, any>
 const brief = (id: number | null, validFrom: Date | null, validTo: Date | null, source: string | null) =>
   id == null ? null : { id, validFrom: validFrom!.toISOString(), validTo: validTo!.toISOString(), source: source! }
 
-const next = (col: string, where: string) =>
-  `(SELECT q.${col} FROM profiles q WHERE q.airfield_id = a.id AND q.status = 'active' AND ${where} ORDER BY q.valid_from ASC, q.id ASC LIMIT 1)`
+// The first active profile per airfield among those still valid at `now` (through the (status, valid_to) index).
+const firstValid = (also: string) => `(SELECT w.* FROM (SELECT q.id, q.airfield_id, q.valid_from, q.valid_to, q.source,
+    ROW_NUMBER() OVER (PARTITION BY q.airfield_id ORDER BY q.valid_from ASC, q.id ASC) AS rn
+    FROM profiles q WHERE q.status = 'active' AND q.valid_to > ? AND ${also}) w WHERE w.rn = 1)`
 
 export async function readAirfieldList(now = new Date()) {
-  const current = `q.valid_from <= ? AND q.valid_to > ?`
-  const upcoming = `q.valid_from > ?`
   const [rows] = await usePool().query(
-    `SELECT a.*,
-       (SELECT GROUP_CONCAT(e.designator ORDER BY e.designator SEPARATOR ',') FROM runway_ends e WHERE e.airfield_id = a.id) AS designators,
+    `SELECT a.*, es.designators,
        c.id AS c_id, c.valid_from AS c_valid_from, c.valid_to AS c_valid_to, c.source AS c_source,
        n.id AS n_id, n.valid_from AS n_valid_from, n.valid_to AS n_valid_to, n.source AS n_source
      FROM airfields a
-     LEFT JOIN profiles c ON c.id = ${next('id', current)}
-     LEFT JOIN profiles n ON n.id = ${next('id', upcoming)}
+     LEFT JOIN (SELECT e.airfield_id, GROUP_CONCAT(e.designator ORDER BY e.designator SEPARATOR ',') AS designators
+       FROM runway_ends e GROUP BY e.airfield_id) es ON es.airfield_id = a.id
+     LEFT JOIN ${firstValid('q.valid_from <= ?')} c ON c.airfield_id = a.id
+     LEFT JOIN ${firstValid('q.valid_from > ?')} n ON n.airfield_id = a.id
      ORDER BY a.code`,
-    [now, now, now],
+    [now, now, now, now],
   ) as [Row[], unknown]
   return rows.map((r) => {
     const a: Airfield = {

@@ -83,3 +83,16 @@ export function displayLevelIndexes(heightsAglM: number[]): number[] {
   const chosen = new Set([...pick(low, DISPLAY_LEVELS_LOW), ...pick(high, DISPLAY_LEVELS_HIGH), 0, n - 1])
   return [...chosen].sort((a, b) => a - b)
 }
+
+/**
+ * Which points of the engine's 0-600 m grid to show: the 30 m steps and the shown levels (a deep profile puts
+ * every filed level below 600 m on the grid; the tables read the 30 m steps, the polar display the levels).
+ */
+export function displayGridIndexes(grid: { heightAglM: number, sourceIndex: number | null }[], shownLevels: Set<number>): number[] {
+  const out: number[] = []
+  grid.forEach((g, i) => {
+    const onStep = Math.abs(g.heightAglM / 30 - Math.round(g.heightAglM / 30)) < 1e-6
+    if (onStep || g.sourceIndex == null || shownLevels.has(g.sourceIndex) || i === 0 || i === grid.length - 1) out.push(i)
+  })
+  return out
+}

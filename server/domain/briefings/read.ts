@@ -14,7 +14,7 @@ import { rankRunwayEnds } from '../../utils/briefing'
 import { limitSetFromRows } from '../../utils/thresholds'
 import { VEERLINE_CAUTION } from '../../../shared/utils/caution'
 import { BoundedCache } from './analysis-cache'
-import { displayLevelIndexes, roundFigures } from './precision'
+import { displayGridIndexes, displayLevelIndexes, roundFigures } from './precision'
 
 /** Changes whenever the engine, the magnetic model or the shape of the answer changes: part of every key. */
 const CODE_VERSION = 'engine-1;wmm2025;view-1'
@@ -22,26 +22,38 @@ const CODE_VERSION = 'engine-1;wmm2025;view-1'
 const CAUTION_JSON = JSON.stringify(VEERLINE_CAUTION)
 
 // Everything an analysis and its checks read, folded into one digest per airfield (NULLs spelled out so that a
-// value moving between columns still changes it). The profile's own levels never change once filed.
-const STAMP_SQL = `MD5(CONCAT_WS('|', a.id, a.code, a.name, a.updated_at, a.latitude_deg, a.longitude_deg, a.elevation_m,
-  IFNULL(a.mag_var_override_deg, '~'), IFNULL(a.mag_var_override_reason, '~'),
-  IFNULL((SELECT GROUP_CONCAT(CONCAT_WS(',', e.id, e.runway_id, e.designator, e.true_heading_deg) ORDER BY e.id SEPARATOR ';')
-    FROM runway_ends e WHERE e.airfield_id = a.id), '~'),
-  IFNULL((SELECT GROUP_CONCAT(CONCAT_WS(',', t.id, t.scope_key, t.updated_at, IFNULL(t.max_crosswind_kt, '~'),
-      IFNULL(t.max_tailwind_kt, '~'), IFNULL(t.max_layer_shear_kt_per_100ft, '~'), IFNULL(t.max_vector_diff_600m_kt, '~'),
-      IFNULL(t.max_airspeed_loss_kt, '~'), IFNULL(t.near_limit_margin_pct, '~')) ORDER BY t.id SEPARATOR ';')
-    FROM threshold_sets t WHERE t.scope_key = 'org' OR t.airfield_id = a.id), '~')))`
+// value moving between columns still changes it). The profile's own levels never change once filed. The same
+// expressions serve one airfield (correlated) and all of them (grouped), so both give the same digest.
+const ENDS_SIG = `GROUP_CONCAT(CONCAT_WS(',', e.id, e.runway_id, e.designator, e.true_heading_deg) ORDER BY e.id SEPARATOR ';')`
+const LIMITS_SIG = `GROUP_CONCAT(CONCAT_WS(',', t.id, t.scope_key, t.updated_at, IFNULL(t.max_crosswind_kt, '~'),
+  IFNULL(t.max_tailwind_kt, '~'), IFNULL(t.max_layer_shear_kt_per_100ft, '~'), IFNULL(t.max_vector_diff_600m_kt, '~'),
+  IFNULL(t.max_airspeed_loss_kt, '~'), IFNULL(t.near_limit_margin_pct, '~')) ORDER BY t.id SEPARATOR ';')`
+const ORG_LIMITS_SQL = `(SELECT ${LIMITS_SIG} FROM threshold_sets t WHERE t.scope_key = 'org')`
+const stampSql = (endsSig: string, fieldLimitsSig: string) => `MD5(CONCAT_WS('|', a.id, a.code, a.name, a.updated_at,
+  a.latitude_deg, a.longitude_deg, a.elevation_m, IFNULL(a.mag_var_override_deg, '~'), IFNULL(a.mag_var_override_reason, '~'),
+  IFNULL(${endsSig}, '~'), IFNULL(${ORG_LIMITS_SQL}, '~'), IFNULL(${fieldLimitsSig}, '~')))`
+const STAMP_ONE_SQL = stampSql(`(SELECT ${ENDS_SIG} FROM runway_ends e WHERE e.airfield_id = a.id)`,
+  `(SELECT ${LIMITS_SIG} FROM threshold_sets t WHERE t.airfield_id = a.id)`)
+const ENDS_BY_AIRFIELD_SQL = `(SELECT e.airfield_id, ${ENDS_SIG} AS sig,
+  GROUP_CONCAT(e.designator ORDER BY e.designator SEPARATOR ',') AS designators FROM runway_ends e GROUP BY e.airfield_id)`
+const LIMITS_BY_AIRFIELD_SQL = `(SELECT t.airfield_id, ${LIMITS_SIG} AS sig FROM threshold_sets t
+  WHERE t.airfield_id IS NOT NULL GROUP BY t.airfield_id)`
 
 const PROFILE_COLUMNS = `p.id AS p_id, p.valid_from AS p_valid_from, p.valid_to AS p_valid_to, p.source AS p_source,
   p.height_reference AS p_height_reference, p.status AS p_status, p.superseded_by_id AS p_superseded_by_id,
   p.withdrawn_reason AS p_withdrawn_reason, p.notes AS p_notes, p.created_at AS p_created_at`
 
 // The profile a briefing is for: the newest active one valid at `at`, else the newest not withdrawn begun by `at`.
+const LATEST_BEGUN_SQL = `(SELECT q.id FROM profiles q WHERE q.airfield_id = a.id AND q.status <> 'withdrawn' AND q.valid_from <= ?
+    ORDER BY q.valid_from DESC, q.id DESC LIMIT 1)`
 const IN_FORCE_SQL = `COALESCE(
   (SELECT q.id FROM profiles q WHERE q.airfield_id = a.id AND q.status = 'active' AND q.valid_from <= ? AND q.valid_to >= ?
-    ORDER BY q.valid_from DESC, q.id DESC LIMIT 1),
-  (SELECT q.id FROM profiles q WHERE q.airfield_id = a.id AND q.status <> 'withdrawn' AND q.valid_from <= ?
-    ORDER BY q.valid_from DESC, q.id DESC LIMIT 1))`
+    ORDER BY q.valid_from DESC, q.id DESC LIMIT 1), ${LATEST_BEGUN_SQL})`
+// The same for every airfield at once: the valid ones through the (status, valid_to) index, the fallback only
+// where none is valid (COALESCE stops at the first value).
+const VALID_BY_AIRFIELD_SQL = `(SELECT w.id, w.airfield_id FROM (SELECT q.id, q.airfield_id,
+    ROW_NUMBER() OVER (PARTITION BY q.airfield_id ORDER BY q.valid_from DESC, q.id DESC) AS rn
+    FROM profiles q WHERE q.status = 'active' AND q.valid_to >= ? AND q.valid_from <= ?) w WHERE w.rn = 1)`
 
 type Row = Record<string, any>
 
@@ -74,7 +86,10 @@ const keyOf = (profileId: number, stamp: string, precision: Precision) => `${pro
 export function briefingView(full: Briefing, profileId: number) {
   const keep = displayLevelIndexes(full.levels.map(l => l.heightAglM))
   const pick = <T>(xs: T[]) => (keep.length === xs.length ? xs : keep.map(i => xs[i]!))
-  const { checks: _all, input, levels, runwayEnds, ...rest } = full
+  const shownSources = new Set(keep.map(i => full.levels[i]!.sourceIndex))
+  const keepGrid = displayGridIndexes(full.grid, shownSources)
+  const pickGrid = <T>(xs: T[]) => (keepGrid.length === xs.length ? xs : keepGrid.map(i => xs[i]!))
+  const { checks: _all, input, levels, grid, runwayEnds, ...rest } = full
   return roundFigures({
     ...rest,
     input: { heightReference: input.heightReference, elevationM: input.elevationM, runwayEnds: input.runwayEnds,
@@ -86,7 +101,8 @@ export function briefingView(full: Briefing, profileId: number) {
         : `${keep.length} of ${levels.length} levels shown (evenly spread, most of them in the lowest 600 m); every level is in the filed profile`,
     },
     levels: pick(levels),
-    runwayEnds: runwayEnds.map(({ exceeded: _e, near: _n, ...end }) => ({ ...end, levels: pick(end.levels) })),
+    grid: pickGrid(grid),
+    runwayEnds: runwayEnds.map(({ exceeded: _e, near: _n, ...end }) => ({ ...end, levels: pick(end.levels), byHeight: pickGrid(end.byHeight) })),
   })
 }
 
@@ -186,7 +202,7 @@ export async function readBriefing(code: string, userId: number, opts: { at?: Da
   const profileExpr = opts.profileId != null ? `(SELECT q.id FROM profiles q WHERE q.id = ? AND q.airfield_id = a.id)` : IN_FORCE_SQL
   const profileArgs = opts.profileId != null ? [opts.profileId] : [at, at, at]
   const [rows] = await usePool().query(
-    `SELECT ${AIRFIELD_COLUMNS}, ${PROFILE_COLUMNS}, r.id AS r_id, r.read_at AS r_read_at, ${STAMP_SQL} AS stamp
+    `SELECT ${AIRFIELD_COLUMNS}, ${PROFILE_COLUMNS}, r.id AS r_id, r.read_at AS r_read_at, ${STAMP_ONE_SQL} AS stamp
      FROM airfields a
      LEFT JOIN profiles p ON p.id = ${profileExpr}
      LEFT JOIN briefing_receipts r ON r.user_id = ? AND r.profile_id = p.id
@@ -221,10 +237,12 @@ export async function readBriefing(code: string, userId: number, opts: { at?: Da
 export async function readBriefingSummaries() {
   const now = new Date()
   const [rows] = await usePool().query(
-    `SELECT ${AIRFIELD_COLUMNS}, ${PROFILE_COLUMNS}, ${STAMP_SQL} AS stamp,
-       (SELECT GROUP_CONCAT(e.designator ORDER BY e.designator SEPARATOR ',') FROM runway_ends e WHERE e.airfield_id = a.id) AS designators
+    `SELECT ${AIRFIELD_COLUMNS}, ${PROFILE_COLUMNS}, ${stampSql('es.sig', 'ls.sig')} AS stamp, es.designators AS designators
      FROM airfields a
-     LEFT JOIN profiles p ON p.id = ${IN_FORCE_SQL}
+     LEFT JOIN ${ENDS_BY_AIRFIELD_SQL} es ON es.airfield_id = a.id
+     LEFT JOIN ${LIMITS_BY_AIRFIELD_SQL} ls ON ls.airfield_id = a.id
+     LEFT JOIN ${VALID_BY_AIRFIELD_SQL} v ON v.airfield_id = a.id
+     LEFT JOIN profiles p ON p.id = COALESCE(v.id, ${LATEST_BEGUN_SQL})
      ORDER BY a.code`,
     [now, now, now],
   ) as [Row[], unknown]
