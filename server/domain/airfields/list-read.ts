@@ -7,6 +7,8 @@ import type { Airfield } from '../../db/schema'
 import { usePool } from '../../utils/db'
 import { airfieldSummary } from '../../utils/airfields'
 
+// A raw mysql2 row: its columns are typed where they are read.
+// eslint-disable-next-line @typescript-eslint/no-explicit-any
 type Row = Record<string, any>
 
 const brief = (id: number | null, validFrom: Date | null, validTo: Date | null, source: string | null) =>

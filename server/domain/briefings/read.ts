@@ -55,6 +55,8 @@ const VALID_BY_AIRFIELD_SQL = `(SELECT w.id, w.airfield_id FROM (SELECT q.id, q.
     ROW_NUMBER() OVER (PARTITION BY q.airfield_id ORDER BY q.valid_from DESC, q.id DESC) AS rn
     FROM profiles q WHERE q.status = 'active' AND q.valid_to >= ? AND q.valid_from <= ?) w WHERE w.rn = 1)`
 
+// A raw mysql2 row: its columns are typed where they are read.
+// eslint-disable-next-line @typescript-eslint/no-explicit-any
 type Row = Record<string, any>
 
 function profileOf(r: Row, airfieldId: number) {
@@ -63,7 +65,7 @@ function profileOf(r: Row, airfieldId: number) {
     heightReference: r.p_height_reference, status: r.p_status, supersededById: r.p_superseded_by_id,
     withdrawnReason: r.p_withdrawn_reason, notes: r.p_notes, createdAt: r.p_created_at,
   } as Pick<Profile, 'id' | 'airfieldId' | 'validFrom' | 'validTo' | 'source' | 'heightReference' | 'status'
-    | 'supersededById' | 'withdrawnReason' | 'notes' | 'createdAt'>
+  | 'supersededById' | 'withdrawnReason' | 'notes' | 'createdAt'>
 }
 
 type ProfileHead = ReturnType<typeof profileOf>
@@ -97,7 +99,8 @@ export function briefingView(full: Briefing, profileId: number) {
     display: {
       levelsShown: keep.length,
       levelCount: levels.length,
-      note: keep.length === levels.length ? null
+      note: keep.length === levels.length
+        ? null
         : `${keep.length} of ${levels.length} levels shown (evenly spread, most of them in the lowest 600 m); every level is in the filed profile`,
     },
     levels: pick(levels),
@@ -182,11 +185,11 @@ export function publicProfileOf(p: ProfileHead, now: Date) {
   }
 }
 
-export type BriefingRead =
-  | { kind: 'no-airfield', code: string }
-  | { kind: 'no-such-profile', code: string, profileId: number }
-  | { kind: 'no-profile', body: string, etag: string }
-  | { kind: 'briefing', body: string, etag: string, profileId: number }
+export type BriefingRead
+  = | { kind: 'no-airfield', code: string }
+    | { kind: 'no-such-profile', code: string, profileId: number }
+    | { kind: 'no-profile', body: string, etag: string }
+    | { kind: 'briefing', body: string, etag: string, profileId: number }
 
 const weakTag = (s: string) => `W/"${createHash('md5').update(s).digest('base64url')}"`
 

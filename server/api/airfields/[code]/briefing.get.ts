@@ -1,6 +1,6 @@
 import { airfieldCodeParamSchema } from '#shared/utils/airfield-schema'
 import { briefingQuerySchema } from '#shared/utils/briefing-schemas'
-import { readBriefing } from '../../../domain/briefings/read'
+import { readBriefing, type BriefingAnswer } from '../../../domain/briefings/read'
 
 // The runway briefing of an airfield: the profile valid now (or at ?at=, or the version ?profile=), every role.
 // Answered from the analysis cache as JSON text, with a weak ETag (304 when the reader already has it).
@@ -17,5 +17,6 @@ export default defineEventHandler(async (event) => {
   setResponseHeader(event, 'cache-control', 'private, no-cache')
   if (getRequestHeader(event, 'if-none-match') === read.etag) return sendNoContent(event, 304)
   setResponseHeader(event, 'content-type', 'application/json; charset=utf-8')
-  return read.body
+  // JSON text spliced from the cache; typed as what it spells for the pages' fetches.
+  return read.body as unknown as BriefingAnswer
 })
