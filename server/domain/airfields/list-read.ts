@@ -5,7 +5,7 @@
  */
 import type { Airfield } from '../../db/schema'
 import { usePool } from '../../utils/db'
-import { airfieldSummary } from '../../utils/airfields'
+import { airfieldSummary } from './index'
 
 // A raw mysql2 row: its columns are typed where they are read.
 // eslint-disable-next-line @typescript-eslint/no-explicit-any

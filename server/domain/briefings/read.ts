@@ -7,11 +7,10 @@
 import { createHash } from 'node:crypto'
 import type { Airfield, Profile, RunwayEnd, ThresholdSet } from '../../db/schema'
 import { asc, inArray, schema, usePool, useDB } from '../../utils/db'
-import { analyseStored } from '../../utils/profile-analysis'
-import { assembleBriefing, profileStatus, publicAirfield, STATUS_WORDS, type Briefing } from '../../utils/briefing'
-import { evaluateLimits } from '../../utils/limits'
-import { rankRunwayEnds } from '../../utils/briefing'
-import { limitSetFromRows } from '../../utils/thresholds'
+import { analyseStored } from '../profiles/analysis'
+import { assembleBriefing, profileStatus, publicAirfield, rankRunwayEnds, STATUS_WORDS, type Briefing } from './briefing'
+import { evaluateLimits } from '../../../shared/limits'
+import { limitSetFromRows } from '../alerts/limits'
 import { VEERLINE_CAUTION } from '../../../shared/utils/caution'
 import { BoundedCache } from './analysis-cache'
 import { displayGridIndexes, displayLevelIndexes, roundFigures } from './precision'
@@ -184,6 +183,15 @@ export function publicProfileOf(p: ProfileHead, now: Date) {
     notes: p.notes,
   }
 }
+
+export type BriefingView = ReturnType<typeof briefingView>
+
+/** The shape of the JSON text readBriefing answers (for the route's type: the text itself is spliced, not built). */
+type BriefingBody = BriefingView & { at: string, generatedAt: string, profile: ReturnType<typeof publicProfileOf> }
+type ReceiptBody = { id: number, profileId: number, readAt: string }
+export type BriefingAnswer
+  = | { briefing: BriefingBody, receipt: ReceiptBody | null, caution: string }
+    | { briefing: null, airfield: ReturnType<typeof publicAirfield>, at: string, message: string, caution: string, receipt: null }
 
 export type BriefingRead
   = | { kind: 'no-airfield', code: string }
