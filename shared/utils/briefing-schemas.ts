@@ -8,6 +8,9 @@ const isoTime = z.string().trim().pipe(instantSchema('at')).transform(s => new D
 export const briefingQuerySchema = z.object({
   at: isoTime.optional(),
   profile: idSchema('profile').optional(),
+  // 'trade' (the default): figures rounded to the trade's precision and levels thinned for display;
+  // 'full': every level and every figure as the engine computed it.
+  precision: z.enum(['trade', 'full'], { errorMap: () => ({ message: 'must be trade or full' }) }).optional(),
 }).strict()
 
 export const trendQuerySchema = z.object({
