@@ -25,8 +25,8 @@ export default defineNuxtConfig({
   srcDir: '.',
   compatibilityDate: '2026-01-01',
   nitro: {
-    // Only the helpers directly in server/utils are auto-imported; its sub-folders (wind/, ...) are plain
-    // TypeScript modules that routes import by path, so their many exports do not flood the global names.
+    // Only the helpers directly in server/utils are auto-imported; the domain modules (server/domain/*) and the
+    // pure code (shared/wind, shared/limits) are imported by path, so their many exports do not flood the global names.
     imports: {
       dirsScanOptions: { fileFilter: (file: string) => !/server[/\\]utils[/\\][^/\\]+[/\\]/.test(file) },
     },

@@ -4,8 +4,8 @@
  * Prints the median time of one computation and the total for 10,000. Run: npx tsx bench/wind.ts
  */
 import { performance } from 'node:perf_hooks'
-import { analyseProfile } from '../server/utils/wind'
-import type { LevelInput, ProfileAnalysisInput } from '../server/utils/wind'
+import { analyseProfile } from '../shared/wind'
+import type { LevelInput, ProfileAnalysisInput } from '../shared/wind'
 
 const LEVELS = 200
 const RUNS = 10_000

@@ -3,7 +3,7 @@ import { drizzle } from 'drizzle-orm/mysql2'
 import { migrate } from 'drizzle-orm/mysql2/migrator'
 import mysql from 'mysql2/promise'
 import * as schema from '../server/db/schema'
-import { seedDemo } from '../server/db/seed'
+import { seedDemo } from '../server/seed'
 
 const url = process.env.DATABASE_URL
 if (!url) throw new Error('DATABASE_URL is not set')

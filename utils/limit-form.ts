@@ -1,5 +1,5 @@
 import { z } from 'zod'
-import { LIMIT_RANGES } from '~~/server/utils/limits'
+import { LIMIT_RANGES } from '~~/shared/limits'
 
 // The limit form's schema: the same ranges and messages as the server (LIMIT_RANGES), blank = inherit.
 export const LIMIT_FIELDS = ['maxCrosswindKt', 'maxTailwindKt', 'maxLayerShearKtPer100ft', 'maxVectorDiff600mKt', 'maxAirspeedLossKt', 'nearLimitMarginPct'] as const

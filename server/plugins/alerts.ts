@@ -1,9 +1,9 @@
 // Alerts inside the app: evaluation on every profile or limit change (in the same transaction) and the outbox
 // worker, which polls for due deliveries on an interval.
 import { randomBytes } from 'node:crypto'
-import { evaluateAirfield } from '../utils/alerts/evaluate'
-import { defaultSenders, runOutboxOnce } from '../utils/alerts/worker'
-import { vapidKeys } from '../utils/alerts/push'
+import { evaluateAirfield } from '../domain/alerts/evaluate'
+import { defaultSenders, runOutboxOnce } from '../domain/alerts/worker'
+import { vapidKeys } from '../domain/alerts/push'
 
 export default defineNitroPlugin((nitroApp) => {
   const appUrl = () => process.env.NUXT_PUBLIC_APP_URL || useRuntimeConfig().public.appUrl

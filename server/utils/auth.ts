@@ -3,6 +3,9 @@ import type { RoleName } from '#shared/utils/roles'
 import type { User } from '../db/schema'
 import { eq, schema, useDB } from './db'
 
+// Who may file (a feed's API token or a signed-in dispatcher or admin); its body moves here from the accounts module.
+export { requireFiler } from '../domain/accounts/api-tokens'
+
 /**
  * Who is asking: the signed-in user as the database knows them now.
  * A disabled or removed user's session is cleared and answered 401 on its next request.

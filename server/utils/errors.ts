@@ -1,13 +1,82 @@
-import type { ZodError } from 'zod'
+import type { ZodError, ZodIssue } from 'zod'
 
+/** One refused field: `field` is a path spelled `levels[1].directionDeg`; `line` and `index` place it in a file or list. */
 export type FieldIssue = { field: string, message: string, line?: number, index?: number }
+
+export type DomainErrorKind = 'invalid' | 'not-found' | 'conflict' | 'gone' | 'forbidden'
+
+/**
+ * What domain code throws instead of an HTTP error: a kind, a message a person can act on and, for refused input,
+ * the issues. `defineApiHandler` turns it into the HTTP answer in one place.
+ */
+export class DomainError extends Error {
+  readonly kind: DomainErrorKind
+  readonly issues: FieldIssue[]
+  constructor(kind: DomainErrorKind, message: string, issues: FieldIssue[] = []) {
+    super(message)
+    this.name = 'DomainError'
+    this.kind = kind
+    this.issues = issues
+  }
+}
+
+/** HTTP status per domain error kind. */
+export const DOMAIN_ERROR_STATUS: Record<DomainErrorKind, number> = {
+  'invalid': 422,
+  'not-found': 404,
+  'conflict': 409,
+  'gone': 410,
+  'forbidden': 403,
+}
+
+/** The one spelling of a field path: object keys joined by dots, list positions in brackets (`ends[1].designator`). */
+export function fieldPath(path: ReadonlyArray<string | number>): string {
+  let out = ''
+  for (const part of path) {
+    if (typeof part === 'number' || /^\d+$/.test(part)) out += `[${part}]`
+    else out += out ? `.${part}` : part
+  }
+  return out
+}
+
+/** A zod issue in the contract's shape; `root` names the whole input when the path is empty. */
+export function issueOf(issue: ZodIssue, root = '(body)'): FieldIssue {
+  return { field: fieldPath(issue.path) || root, message: issue.message }
+}
+
+export function issuesOf(error: ZodError, root = '(body)'): FieldIssue[] {
+  return error.issues.map(i => issueOf(i, root))
+}
+
+/** The plain statusMessage of a 422: the summary and the first few issues. */
+export function invalidMessage(issues: FieldIssue[], summary = 'Some fields need attention'): string {
+  if (!issues.length) return summary
+  const shown = issues.slice(0, 3).map(i => `${i.field}: ${i.message}`).join('; ')
+  return `${summary}: ${shown}${issues.length > 3 ? ` (+${issues.length - 3} more)` : ''}`
+}
+
+export function invalid(issues: FieldIssue[], message?: string): DomainError {
+  return new DomainError('invalid', message ?? invalidMessage(issues), issues)
+}
+export function notFound(message: string): DomainError {
+  return new DomainError('not-found', message)
+}
+export function conflict(message: string): DomainError {
+  return new DomainError('conflict', message)
+}
+export function gone(message: string): DomainError {
+  return new DomainError('gone', message)
+}
+export function forbidden(message: string): DomainError {
+  return new DomainError('forbidden', message)
+}
 
 /** Turns a zod error into a 422 whose data lists every field with its message. */
 export function validationError(error: ZodError, statusMessage = 'Some fields need attention') {
   const issues: FieldIssue[] = error.issues.map(i => ({ field: i.path.join('.') || '(body)', message: i.message }))
   return createError({
     statusCode: 422,
-    statusMessage: `${statusMessage}: ${issues.slice(0, 3).map(i => `${i.field}: ${i.message}`).join('; ')}${issues.length > 3 ? ` (+${issues.length - 3} more)` : ''}`,
+    statusMessage: invalidMessage(issues, statusMessage),
     data: { issues },
   })
 }

@@ -1,8 +1,8 @@
 import type { H3Event } from 'h3'
-import type { FilingActor } from './profile-filing'
+import type { FilingActor } from '../domain/profiles/filing'
 import { and, eq, schema, useDB } from './db'
 import type { Tx } from './db'
-import { sha256Hex } from './api-tokens'
+import { sha256Hex } from '../domain/accounts/api-tokens'
 
 export type IdempotencyClaim = { scope: string, key: string, route: string, requestHash: string }
 

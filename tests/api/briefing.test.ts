@@ -1,8 +1,8 @@
 // The briefing route against the wind engine run directly on the same input, for every demo profile.
 import { beforeAll, describe, expect, it } from 'vitest'
 import { ApiClient, demoDay, signedIn } from '../support/api'
-import { analyseProfile, MPS_PER_KT } from '../../server/utils/wind'
-import { DEFAULT_LIMITS, evaluateLimits } from '../../server/utils/limits'
+import { analyseProfile, MPS_PER_KT } from '../../shared/wind'
+import { DEFAULT_LIMITS, evaluateLimits } from '../../shared/limits'
 
 const DEMO_CODES = ['XVAL', 'XCST', 'XHGH']
 let pilot: ApiClient

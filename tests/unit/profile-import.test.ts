@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
-import { parseProfileCsv } from '../../server/utils/import/csv'
-import { jsonErrorOffset, parseProfileJson } from '../../server/utils/import/json'
+import { parseProfileCsv } from '../../server/domain/profiles/import/csv'
+import { jsonErrorOffset, parseProfileJson } from '../../server/domain/profiles/import/json'
 import { designatorPairProblem } from '../../shared/utils/airfield-schema'
 
 describe('CSV levels', () => {

@@ -1,4 +1,6 @@
 import { airfieldCodeParamSchema } from '#shared/utils/airfield-schema'
+import { airfieldDetail, profileStateOf } from '../../domain/airfields'
+import { airfieldByCode } from '../../domain/profiles/analysis'
 
 export default defineEventHandler(async (event) => {
   await requireUser(event)

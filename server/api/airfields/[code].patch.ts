@@ -1,4 +1,5 @@
 import { airfieldCodeParamSchema, airfieldUpdateSchema } from '#shared/utils/airfield-schema'
+import { airfieldDetail } from '../../domain/airfields'
 
 export default defineEventHandler(async (event) => {
   const user = await requireRole(event, 'dispatcher', 'admin')

@@ -1,3 +1,4 @@
+import { airfieldSummary, profileStateOf } from '../../domain/airfields'
 // Every airfield with the profile in force now (or the next one), for the airfield list.
 export default defineEventHandler(async (event) => {
   await requireUser(event)

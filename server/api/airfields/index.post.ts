@@ -1,4 +1,6 @@
 import { airfieldCreateSchema } from '#shared/utils/airfield-schema'
+import { airfieldDetail } from '../../domain/airfields'
+import { airfieldByCode } from '../../domain/profiles/analysis'
 
 export default defineEventHandler(async (event) => {
   const user = await requireRole(event, 'dispatcher', 'admin')

@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { airfieldByCode } from '../../domain/profiles/analysis'
 
 const querySchema = z.object({
   airfield: z.string().trim().regex(/^[A-Za-z]{4}$/, 'airfield must be a four-letter code').optional(),

@@ -1,5 +1,5 @@
 import { z } from 'zod'
-import { findLiveToken } from '../../utils/alerts/tokens'
+import { findLiveToken } from '../../domain/accounts/tokens'
 
 // Public: what an invitation link is for, so the page can greet the person. 404 when used, expired or unknown.
 export default defineEventHandler(async (event) => {

@@ -1,6 +1,6 @@
 import { z } from 'zod'
 import { emailSchema, roleSchema } from '#shared/utils/schemas'
-import { issueToken } from '../../utils/alerts/tokens'
+import { issueToken } from '../../domain/accounts/tokens'
 
 const bodySchema = z.object({ email: emailSchema, name: z.string().trim().min(1, 'Name is required').max(120), role: roleSchema })
 

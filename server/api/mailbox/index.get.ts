@@ -1,5 +1,5 @@
 import { z } from 'zod'
-import { readMailbox } from '../../utils/alerts/mailbox'
+import { readMailbox } from '../../domain/standins/mailbox'
 
 const querySchema = z.object({ to: z.string().trim().max(254).optional(), limit: z.coerce.number().int().min(1).max(1000).default(200) })
 

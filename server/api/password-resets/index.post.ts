@@ -1,6 +1,6 @@
 import { z } from 'zod'
 import { emailSchema } from '#shared/utils/schemas'
-import { issueToken } from '../../utils/alerts/tokens'
+import { issueToken } from '../../domain/accounts/tokens'
 
 const bodySchema = z.object({ email: emailSchema })
 const RESET_WINDOW_MS = 15 * 60 * 1000

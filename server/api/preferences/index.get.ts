@@ -1,3 +1,4 @@
+import { preferencesOf } from '../../domain/accounts/preferences'
 // The signed-in user's display preferences (defaults when never set).
 export default defineEventHandler(async (event) => {
   const user = await requireUser(event)

@@ -1,4 +1,5 @@
 import { preferencesSchema } from '#shared/utils/display-units'
+import { preferencesOf } from '../../domain/accounts/preferences'
 
 // Changes some or all of the signed-in user's display preferences; answers the whole set.
 export default defineEventHandler(async (event) => {

@@ -1,4 +1,5 @@
 import { idParamSchema } from '#shared/utils/schemas'
+import { publicProfile } from '../../domain/profiles/filing'
 
 // One profile as filed, with its history links (what it superseded, what superseded it).
 export default defineEventHandler(async (event) => {

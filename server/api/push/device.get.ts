@@ -1,4 +1,4 @@
-import { pushStandinUrl } from '../../utils/alerts/push-standin'
+import { pushStandinUrl } from '../../domain/standins/push-device'
 
 // What the push-service stand-in received (verified and decrypted) for the signed-in user's simulated devices.
 export default defineEventHandler(async (event) => {

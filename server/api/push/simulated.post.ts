@@ -1,5 +1,5 @@
 import { z } from 'zod'
-import { pushStandinUrl } from '../../utils/alerts/push-standin'
+import { pushStandinUrl } from '../../domain/standins/push-device'
 
 const bodySchema = z.object({ label: z.string().trim().min(1).max(120).default('Simulated device') })
 

@@ -1,4 +1,4 @@
-import { vapidKeys } from '../../utils/alerts/push'
+import { vapidKeys } from '../../domain/alerts/push'
 
 // The VAPID public key a browser needs for pushManager.subscribe({ applicationServerKey }).
 export default defineEventHandler(async (event) => {

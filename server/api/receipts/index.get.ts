@@ -1,4 +1,6 @@
 import { receiptQuerySchema } from '#shared/utils/briefing-schemas'
+import { listReceipts } from '../../domain/briefings/receipts'
+import { airfieldByCode } from '../../domain/profiles/analysis'
 
 // Who has read which briefing version. Dispatchers, safety officers and admins see everyone's; a pilot sees their own.
 export default defineEventHandler(async (event) => {

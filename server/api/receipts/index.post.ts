@@ -1,4 +1,5 @@
 import { receiptBodySchema } from '#shared/utils/briefing-schemas'
+import { receiptOf } from '../../domain/briefings/receipts'
 
 // A pilot marks the briefing of one profile version as read. Marking it again changes nothing (200).
 export default defineEventHandler(async (event) => {

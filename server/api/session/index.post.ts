@@ -1,4 +1,5 @@
 import { signInSchema } from '#shared/utils/schemas'
+import { clientAddress, recordSignInFailure, signInWaitS } from '../../domain/accounts/sign-in-limit'
 
 // Signing in is the one route open to a signed-out caller.
 export default defineEventHandler(async (event) => {

@@ -1,4 +1,5 @@
 import { airfieldCodeParamSchema } from '#shared/utils/airfield-schema'
+import { airfieldByCode } from '../../domain/profiles/analysis'
 
 export default defineEventHandler(async (event) => {
   const user = await requireUser(event)

@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { airfieldCodeParamSchema } from '#shared/utils/airfield-schema'
+import { airfieldByCode } from '../../domain/profiles/analysis'
 
 const bodySchema = z.object({
   email: z.boolean({ required_error: 'email is required (true or false)' }),

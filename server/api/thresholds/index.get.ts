@@ -1,5 +1,6 @@
-import { DEFAULT_LIMITS, LIMIT_RANGES } from '../../utils/limits'
-import { layerLimits } from '../../utils/alerts/limit-sets'
+import { DEFAULT_LIMITS, LIMIT_RANGES } from '../../../shared/limits'
+import { layerLimits } from '../../domain/alerts/limit-sets'
+import { ORG_SCOPE, effectiveLimits, scopeKeyOf, valuesOf } from '../../domain/alerts/limits'
 
 // Every limit set with what is in force: the organisation default and each airfield's override and runway ends.
 export default defineEventHandler(async (event) => {

@@ -1,5 +1,5 @@
-import { limitChangeSchema } from '../../utils/alerts/limit-sets'
-import { saveLimitSet } from '../../utils/alerts/threshold-change'
+import { limitChangeSchema } from '../../domain/alerts/limit-sets'
+import { saveLimitSet } from '../../domain/alerts/limit-change'
 
 // The organisation's default limits. Null for a figure means the built-in default.
 export default defineEventHandler(async (event) => {

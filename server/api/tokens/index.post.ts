@@ -1,4 +1,5 @@
 import { tokenCreateSchema } from '#shared/utils/profile-schema'
+import { newApiToken } from '../../domain/accounts/api-tokens'
 
 // Makes an API token for a feed. The answer carries the token once; only its SHA-256 is stored.
 export default defineEventHandler(async (event) => {

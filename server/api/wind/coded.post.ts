@@ -1,5 +1,6 @@
 import { z } from 'zod'
-import { parseCodedLines } from '../../utils/import/coded'
+import { parseCodedLines } from '../../domain/profiles/import/coded'
+import { profileIssuesError } from '../../domain/profiles/filing'
 
 const bodySchema = z.object({ text: z.string({ required_error: 'Paste one or more report lines' }).min(1, 'Paste one or more report lines').max(20_000, 'At most 20,000 characters') }).strict()
 

@@ -1,5 +1,8 @@
 import { windPreviewSchema } from '#shared/utils/profile-schema'
-import { analyseProfile, WindValidationError } from '../../utils/wind'
+import { analyseProfile, WindValidationError } from '../../../shared/wind'
+import { declinationToday } from '../../domain/airfields'
+import { airfieldByCode, runwayEndInputsOf } from '../../domain/profiles/analysis'
+import { profileIssuesError, withLevelPlaces, zodProfileError } from '../../domain/profiles/filing'
 
 // Runs the wind engine on levels without saving anything: for the entry form's live preview and for other systems.
 export default defineEventHandler(async (event) => {

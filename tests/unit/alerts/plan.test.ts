@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest'
-import { planAlerts, type ProfileFacts, type StoredAlert } from '../../../server/utils/alerts/plan'
-import { nextDelayMs } from '../../../server/utils/alerts/backoff'
-import { layerLimits } from '../../../server/utils/alerts/limit-sets'
-import { DEFAULT_LIMITS, type LimitCheck } from '../../../server/utils/limits'
+import { planAlerts, type ProfileFacts, type StoredAlert } from '../../../server/domain/alerts/plan'
+import { nextDelayMs } from '../../../server/domain/alerts/backoff'
+import { layerLimits } from '../../../server/domain/alerts/limit-sets'
+import { DEFAULT_LIMITS, type LimitCheck } from '../../../shared/limits'
 
 const now = new Date('2026-05-01T06:00:00Z')
 const later = new Date('2026-05-01T09:00:00Z')

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest'
-import { profileStatus, rankRunwayEnds } from '../../../server/utils/briefing'
-import { analyseProfile } from '../../../server/utils/wind'
-import { DEFAULT_LIMITS, evaluateLimits } from '../../../server/utils/limits'
+import { profileStatus, rankRunwayEnds } from '../../../server/domain/briefings/briefing'
+import { analyseProfile } from '../../../shared/wind'
+import { DEFAULT_LIMITS, evaluateLimits } from '../../../shared/limits'
 
 // A single runway 04/22 (true headings 47 and 227) with a surface wind from 220° at 12 kt, gusting 26:
 // 22 has a 12·cos(7°) = 11.9 kt headwind; 04 the same as a tailwind (above the 10 kt default, NLR-TP-2001-003).

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
-import { DEFAULT_SHEAR_CLASS_BOUNDS_KT_PER_100FT, WindValidationError, analyseProfile, classifyShear } from '../../../server/utils/wind'
-import type { LevelInput, ProfileAnalysisInput } from '../../../server/utils/wind'
+import { DEFAULT_SHEAR_CLASS_BOUNDS_KT_PER_100FT, WindValidationError, analyseProfile, classifyShear } from '../../../shared/wind'
+import type { LevelInput, ProfileAnalysisInput } from '../../../shared/wind'
 
 const issuesOf = (input: unknown): { index?: number, field: string, message: string }[] => {
   try {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { WindValidationError, heightToPressureHpa, pressureToHeightM } from '../../../server/utils/wind'
+import { WindValidationError, heightToPressureHpa, pressureToHeightM } from '../../../shared/wind'
 
 // Published standard atmosphere table based on the 1964 ICAO table (per DOMAIN.md): whole metres.
 const ICAO_TABLE: [pressureHpa: number, heightM: number, heightFt: number][] = [

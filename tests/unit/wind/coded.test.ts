@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { MPS_PER_KT, WindValidationError, analyseProfile, parseCodedReport } from '../../../server/utils/wind'
+import { MPS_PER_KT, WindValidationError, analyseProfile, parseCodedReport } from '../../../shared/wind'
 
 const issuesOf = (fn: () => unknown): { field: string, message: string, line?: number }[] => {
   try {

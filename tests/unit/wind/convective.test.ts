@@ -2,8 +2,8 @@ import { describe, expect, it } from 'vitest'
 import {
   BUNKERS_DEVIATION_MPS, MPS_PER_KT, WindValidationError, analyseProfile, bunkersStormMotion, stormRelativeHelicity,
   streamwiseVorticityShare,
-} from '../../../server/utils/wind'
-import type { LevelInput } from '../../../server/utils/wind'
+} from '../../../shared/wind'
+import type { LevelInput } from '../../../shared/wind'
 
 describe('storm-relative helicity (Markowski and Richardson 2010, discrete form)', () => {
   it('heights 0/250/500/750 m, u 0/20/10/0, v 20/0/0/10 m/s, storm at rest: +400, -100, total 300 m²/s² (MetPy test suite case)', () => {

@@ -1,6 +1,6 @@
 import geodesic from 'geographiclib-geodesic'
 import { describe, expect, it } from 'vitest'
-import { WindValidationError, runwayTrueBearingDeg } from '../../../server/utils/wind'
+import { WindValidationError, runwayTrueBearingDeg } from '../../../shared/wind'
 
 describe('runway true bearing by the geodesic inverse (geographiclib-geodesic, WGS84)', () => {
   it('(-30°, 0°) to (29.9°, 179.8°): azi1 161.89052473633° (Karney 2013, J. Geodesy 87:43, inverse example)', () => {

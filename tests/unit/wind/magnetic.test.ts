@@ -1,6 +1,6 @@
 import geomagnetism from 'geomagnetism'
 import { describe, expect, it } from 'vitest'
-import { WindValidationError, magneticDeclinationDeg, magneticFromTrue, trueFromMagnetic } from '../../../server/utils/wind'
+import { WindValidationError, magneticDeclinationDeg, magneticFromTrue, trueFromMagnetic } from '../../../shared/wind'
 
 // NOAA's WMM decimal years assume 365-day years (README-WMM-COEFS.txt).
 const decimalYear = (year: number): Date => {

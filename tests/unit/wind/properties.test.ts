@@ -3,8 +3,8 @@ import { describe, expect, it } from 'vitest'
 import {
   WindValidationError, analyseProfile, bunkersStormMotion, magneticDeclinationDeg, normaliseHeadingDeg, parseCodedReport,
   pathChange, pressureToHeightM, runwayComponents, runwayTrueBearingDeg, stormRelativeHelicity,
-} from '../../../server/utils/wind'
-import type { LevelInput, ProfileAnalysisInput } from '../../../server/utils/wind'
+} from '../../../shared/wind'
+import type { LevelInput, ProfileAnalysisInput } from '../../../shared/wind'
 
 const dir = fc.double({ min: 0, max: 360, noNaN: true })
 const speed = fc.double({ min: 0, max: 250, noNaN: true })

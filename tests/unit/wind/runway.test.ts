@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import {
   WindValidationError, designatorHeadingDeg, designatorMismatch, reciprocalHeadingDeg, runwayComponents,
-} from '../../../server/utils/wind'
+} from '../../../shared/wind'
 
 describe('runway components', () => {
   it('runway 18, wind 220° at 30 kt: headwind 22.98 kt, crosswind 19.28 kt from the right (FAA knowledge-test crosswind chart example; exact values V·cos40°, V·sin40°)', () => {

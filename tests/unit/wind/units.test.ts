@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import {
   KMH_PER_KT, M_PER_FT, MPS_PER_KT, ftToM, kmhToKt, ktToKmh, ktToMps, mToFt, mpsToKmh, mpsToKt,
-} from '../../../server/utils/wind'
+} from '../../../shared/wind'
 
 describe('unit factors are the exact legal definitions', () => {
   it('1 kt = 1852/3600 m/s (international nautical mile of 1852 m, 1929)', () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { uvToWind, windToUV } from '../../../server/utils/wind'
+import { uvToWind, windToUV } from '../../../shared/wind'
 
 describe('wind vector components (meteorological convention, WMO)', () => {
   it('10 m/s from 225° gives u = v = +7.0711 m/s (MetPy wind_components documentation example)', () => {

@@ -1,5 +1,7 @@
 import { airfieldCodeParamSchema } from '#shared/utils/airfield-schema'
 import { briefingQuerySchema } from '#shared/utils/briefing-schemas'
+import { loadBriefing } from '../../../domain/briefings/briefing'
+import { receiptOf } from '../../../domain/briefings/receipts'
 
 // The runway briefing of an airfield: the profile valid now (or at ?at=, or the version ?profile=), every role.
 export default defineEventHandler(async (event) => {

@@ -1,5 +1,7 @@
 import { airfieldCodeParamSchema } from '#shared/utils/airfield-schema'
 import { profileListQuerySchema } from '#shared/utils/profile-schema'
+import { airfieldByCode } from '../../../domain/profiles/analysis'
+import { publicProfile } from '../../../domain/profiles/filing'
 
 // The profiles of one airfield: filtered by a time range (validity overlapping it) and source, sorted, paged.
 export default defineEventHandler(async (event) => {

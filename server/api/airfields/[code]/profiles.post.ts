@@ -1,5 +1,7 @@
 import { z } from 'zod'
 import { airfieldCodeParamSchema } from '#shared/utils/airfield-schema'
+import { airfieldByCode } from '../../../domain/profiles/analysis'
+import { fileProfile } from '../../../domain/profiles/filing'
 
 // How a person entered it, for showing it back; a feed's filing is always 'api'.
 const querySchema = z.object({ entry: z.enum(['table', 'file', 'coded', 'api']).default('api') })

@@ -1,5 +1,7 @@
 import { airfieldCodeParamSchema } from '#shared/utils/airfield-schema'
 import { trendQuerySchema } from '#shared/utils/briefing-schemas'
+import { loadAirfieldWithEnds } from '../../../domain/briefings/briefing'
+import { loadTrend } from '../../../domain/briefings/trend'
 
 // The day's profiles of an airfield over time: strongest shear and each runway end's surface crosswind and tailwind.
 export default defineEventHandler(async (event) => {

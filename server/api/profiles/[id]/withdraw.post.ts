@@ -1,5 +1,6 @@
 import { idParamSchema } from '#shared/utils/schemas'
 import { withdrawSchema } from '#shared/utils/profile-schema'
+import { publicProfile } from '../../../domain/profiles/filing'
 
 // Withdraws an active profile with a reason; it stays, marked. Listeners hear of it in the same transaction.
 export default defineEventHandler(async (event) => {

@@ -1,7 +1,8 @@
 import { z } from 'zod'
 import { airfieldCodeParamSchema } from '#shared/utils/airfield-schema'
-import { limitChangeSchema } from '../../../utils/alerts/limit-sets'
-import { saveLimitSet } from '../../../utils/alerts/threshold-change'
+import { limitChangeSchema } from '../../../domain/alerts/limit-sets'
+import { saveLimitSet } from '../../../domain/alerts/limit-change'
+import { airfieldByCode } from '../../../domain/profiles/analysis'
 
 const bodySchema = limitChangeSchema.extend({
   // Set to override one runway end only; omit for the whole airfield.

@@ -1,8 +1,10 @@
 import { z } from 'zod'
 import { airfieldCodeParamSchema } from '#shared/utils/airfield-schema'
 import { HEIGHT_REFERENCES, PROFILE_SOURCES } from '#shared/utils/profile-schema'
-import { parseProfileCsv } from '../../../../utils/import/csv'
-import { parseProfileJson } from '../../../../utils/import/json'
+import { parseProfileCsv } from '../../../../domain/profiles/import/csv'
+import { parseProfileJson } from '../../../../domain/profiles/import/json'
+import { airfieldByCode } from '../../../../domain/profiles/analysis'
+import { checkProfile, fileProfile, profileIssuesError } from '../../../../domain/profiles/filing'
 
 // A CSV or JSON file as the raw body; the profile's header fields in the query (a JSON file may carry its own).
 // mode=preview answers the parsed levels and every problem with its line and saves nothing; mode=file files

@@ -1,5 +1,7 @@
 import { z } from 'zod'
 import { airfieldCodeSchema, runwaySchema } from '#shared/utils/airfield-schema'
+import { airfieldDetail, runwayEndValues } from '../../../../domain/airfields'
+import { airfieldByCode } from '../../../../domain/profiles/analysis'
 
 const paramsSchema = z.object({ code: airfieldCodeSchema, id: z.coerce.number().int().positive() })
 

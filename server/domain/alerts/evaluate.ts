@@ -1,0 +1,78 @@
+// Alert evaluation inside the transaction that changed profiles or limits: analyse the profiles in force at the
+// airfield, plan the alert changes (plan.ts), apply them and queue the notices in the outbox, all in that transaction.
+import { and, eq, gt, inArray, schema, sql } from '../../utils/db'
+import type { Tx } from '../../utils/db'
+import { loadAndAnalyseProfiles } from '../profiles/analysis'
+import { effectiveLimits } from './limits'
+import { evaluateLimits, type LimitCheck } from '../../../shared/limits'
+import { planAlerts, type ProfileFacts } from './plan'
+import { enqueueAlertNotices } from './outbox'
+
+export interface EvaluationSummary { airfieldId: number, raised: number[], cleared: number[], carried: number[], updated: number[] }
+
+export async function evaluateAirfield(tx: Tx, airfieldId: number, appUrl: string, now = new Date()): Promise<EvaluationSummary> {
+  // One evaluation per airfield at a time: two filings at once must not both insert or both clear.
+  await tx.execute(sql`SELECT id FROM airfields WHERE id = ${airfieldId} FOR UPDATE`)
+
+  const p = schema.profiles
+  const inForce = await tx.select({ id: p.id }).from(p)
+    .where(and(eq(p.airfieldId, airfieldId), eq(p.status, 'active'), gt(p.validTo, now)))
+  const analysed = await loadAndAnalyseProfiles(inForce.map(r => r.id), tx)
+  const lim = await effectiveLimits(airfieldId, tx)
+  const candidates = analysed.map(a => ({ profileId: a.profile.id, checks: evaluateLimits(a.analysis, lim.limits, lim.limitsFor) }))
+
+  const a = schema.alerts
+  const existing = await tx.select().from(a).where(and(eq(a.airfieldId, airfieldId),
+    sql`(${a.state} = 'active' OR ${inArray(a.profileId, [0, ...inForce.map(r => r.id)])})`))
+  const profileIds = [...new Set(existing.map(e => e.profileId))]
+  const facts = profileIds.length
+    ? await tx.select({ id: p.id, status: p.status, supersededById: p.supersededById, validTo: p.validTo }).from(p).where(inArray(p.id, profileIds))
+    : []
+  const plan = planAlerts({ now, candidates, existing, profiles: new Map<number, ProfileFacts>(facts.map(f => [f.id, f])) })
+
+  const summary: EvaluationSummary = { airfieldId, raised: [], cleared: [], carried: [], updated: [] }
+  const fields = (c: LimitCheck) => ({ value: c.value, limitValue: c.limit, unit: c.unit, excess: c.excess, message: c.message.slice(0, 300) })
+  for (const step of plan) {
+    switch (step.action) {
+      case 'insert': {
+        const [row] = await tx.insert(a).values({
+          airfieldId, profileId: step.profileId, designator: step.check.designator ?? '', kind: step.check.kind,
+          ...fields(step.check), continuesAlertId: step.continuesAlertId,
+        }).$returningId()
+        if (step.continuesAlertId != null) {
+          // The inbox follows the chain: the same entries now point at the newer version's alert.
+          await tx.update(schema.alertInbox).set({ alertId: row!.id }).where(eq(schema.alertInbox.alertId, step.continuesAlertId))
+          summary.carried.push(row!.id)
+        }
+        if (step.notify) {
+          await enqueueAlertNotices(tx, row!.id, 'raised', appUrl)
+          summary.raised.push(row!.id)
+        }
+        break
+      }
+      case 'update':
+        await tx.update(a).set({ ...fields(step.check), updatedAt: now }).where(eq(a.id, step.alertId))
+        summary.updated.push(step.alertId)
+        break
+      case 'reactivate':
+        await tx.update(a).set({ ...fields(step.check), state: 'active', clearedAt: null, clearReason: null,
+          raisedCount: sql`${a.raisedCount} + 1`, updatedAt: now }).where(eq(a.id, step.alertId))
+        await enqueueAlertNotices(tx, step.alertId, 'raised', appUrl)
+        summary.raised.push(step.alertId)
+        break
+      case 'carry-over':
+        await tx.update(a).set({ state: 'superseded', clearedAt: now, clearReason: `Carried over to profile #${step.toProfileId}`, updatedAt: now })
+          .where(eq(a.id, step.alertId))
+        break
+      case 'expire':
+        await tx.update(a).set({ state: 'expired', clearedAt: now, clearReason: 'The profile\'s validity ended', updatedAt: now }).where(eq(a.id, step.alertId))
+        break
+      case 'clear':
+        await tx.update(a).set({ state: 'cleared', clearedAt: now, clearReason: step.reason.slice(0, 300), updatedAt: now }).where(eq(a.id, step.alertId))
+        await enqueueAlertNotices(tx, step.alertId, 'cleared', appUrl)
+        summary.cleared.push(step.alertId)
+        break
+    }
+  }
+  return summary
+}

@@ -1,0 +1,270 @@
+/**
+ * The runway briefing of one airfield: which profile, what the wind engine makes of it per runway end,
+ * how it stands against the limits, and the runway ends ranked by suitability.
+ * `assembleBriefing` and `rankRunwayEnds` are pure (tests call them directly); `loadBriefing` reads the database.
+ */
+import { createError } from 'h3'
+import type { Airfield, Profile, RunwayEnd } from '../../db/schema'
+import { runwayComponents, uvToWind, GRID_TOP_M, type GridPoint, type ProfileAnalysis, type RunwayEndAnalysis } from '../../../shared/wind'
+import { evaluateLimits, type LimitCheck, type Limits } from '../../../shared/limits'
+import { analyseStored, levelInputsOf, runwayEndInputsOf, type StoredProfileAnalysis } from '../profiles/analysis'
+import { and, asc, desc, eq, gte, lte, ne, schema, useDB } from '../../utils/db'
+import { effectiveLimits } from '../alerts/limits'
+import { VEERLINE_CAUTION } from '../../../shared/utils/caution'
+
+/** The limits a briefing is held against: the safety office's sets layered over the defaults. */
+export type BriefingLimits = Pick<Awaited<ReturnType<typeof effectiveLimits>>, 'limits' | 'limitsFor' | 'source'>
+
+export type ProfileStatus = 'current' | 'expired' | 'upcoming' | 'superseded' | 'withdrawn'
+
+export const STATUS_WORDS: Record<ProfileStatus, string> = {
+  current: 'Current: valid now',
+  expired: 'Expired: its validity has ended',
+  upcoming: 'Not yet valid',
+  superseded: 'Superseded by a newer profile',
+  withdrawn: 'Withdrawn: do not use',
+}
+
+/** Where a profile stands now. Withdrawn and superseded come first: they override validity. */
+export function profileStatus(p: Pick<Profile, 'status' | 'validFrom' | 'validTo'>, now: Date): ProfileStatus {
+  if (p.status === 'withdrawn') return 'withdrawn'
+  if (p.status === 'superseded') return 'superseded'
+  if (p.validTo.getTime() < now.getTime()) return 'expired'
+  if (p.validFrom.getTime() > now.getTime()) return 'upcoming'
+  return 'current'
+}
+
+export type RankedEnd = {
+  rank: number
+  designator: string
+  /** Surface headwind (negative = tailwind), or null without a surface level. */
+  headwindKt: number | null
+  crosswindKt: number | null
+  withinLimits: boolean
+  exceeded: LimitCheck['kind'][]
+  near: LimitCheck['kind'][]
+  reasons: string[]
+}
+
+/**
+ * Suitability order: ends with none of their own limits exceeded first, then ends with exceedances;
+ * within each group the most surface headwind first, then the least crosswind, then the designator.
+ * Airfield-wide checks (layer shear, vector difference) touch every end alike, so they do not reorder.
+ */
+export function rankRunwayEnds(ends: Pick<RunwayEndAnalysis, 'designator' | 'surface'>[], checks: LimitCheck[]): RankedEnd[] {
+  const rows = ends.map((end) => {
+    const own = checks.filter(c => c.designator === end.designator)
+    const exceeded = own.filter(c => c.state === 'exceeded')
+    return {
+      designator: end.designator,
+      headwindKt: end.surface?.headwindKt ?? null,
+      crosswindKt: end.surface?.crosswindKt ?? null,
+      withinLimits: exceeded.length === 0,
+      exceeded: exceeded.map(c => c.kind),
+      near: own.filter(c => c.state === 'near').map(c => c.kind),
+      reasons: [...exceeded, ...own.filter(c => c.state === 'near')].map(c => c.message),
+    }
+  })
+  rows.sort((a, b) => {
+    if (a.withinLimits !== b.withinLimits) return a.withinLimits ? -1 : 1
+    const ha = a.headwindKt ?? Number.NEGATIVE_INFINITY
+    const hb = b.headwindKt ?? Number.NEGATIVE_INFINITY
+    if (ha !== hb) return hb - ha
+    const ca = Math.abs(a.crosswindKt ?? Number.POSITIVE_INFINITY)
+    const cb = Math.abs(b.crosswindKt ?? Number.POSITIVE_INFINITY)
+    if (ca !== cb) return ca - cb
+    return a.designator.localeCompare(b.designator)
+  })
+  return rows.map((r, i) => ({ rank: i + 1, ...r }))
+}
+
+const FT_M = 0.3048
+
+/**
+ * Wind and components every 100 ft from the ground to 600 m, interpolated linearly in u and v between
+ * the engine's grid points (the grid is itself linear in u and v between the filed levels).
+ */
+export function feetSteps(grid: GridPoint[], ends: Pick<RunwayEndAnalysis, 'designator' | 'trueHeadingDeg'>[]) {
+  if (grid.length < 2) return []
+  const rows = []
+  const low = grid[0]!.heightAglM
+  const high = Math.min(grid[grid.length - 1]!.heightAglM, GRID_TOP_M)
+  for (let ft = 0; ft * FT_M <= high + 1e-9; ft += 100) {
+    const h = ft * FT_M
+    if (h < low - 1e-9) continue
+    const j = Math.max(1, grid.findIndex(g => g.heightAglM >= h - 1e-9))
+    const a = grid[j - 1]!
+    const b = grid[j]!
+    const t = b.heightAglM === a.heightAglM ? 0 : (h - a.heightAglM) / (b.heightAglM - a.heightAglM)
+    const uKt = a.uKt + t * (b.uKt - a.uKt)
+    const vKt = a.vKt + t * (b.vKt - a.vKt)
+    const wind = uvToWind(uKt, vKt)
+    rows.push({
+      heightAglFt: ft,
+      heightAglM: h,
+      directionDeg: wind.directionDeg,
+      speedKt: wind.speed,
+      components: ends.map(e => ({ designator: e.designator, ...runwayComponents(wind.directionDeg, wind.speed, e.trueHeadingDeg) })),
+    })
+  }
+  return rows
+}
+
+function publicProfile(p: Profile, now: Date) {
+  const status = profileStatus(p, now)
+  return {
+    id: p.id,
+    source: p.source,
+    validFrom: p.validFrom.toISOString(),
+    validTo: p.validTo.toISOString(),
+    filedAt: p.createdAt.toISOString(),
+    heightReference: p.heightReference,
+    ageMinutes: Math.round((now.getTime() - p.validFrom.getTime()) / 60_000),
+    status,
+    statusWords: STATUS_WORDS[status],
+    supersededById: p.supersededById,
+    withdrawnReason: p.withdrawnReason,
+    notes: p.notes,
+  }
+}
+
+export function publicAirfield(a: Airfield, ends: RunwayEnd[]) {
+  return {
+    code: a.code, name: a.name, latitudeDeg: a.latitudeDeg, longitudeDeg: a.longitudeDeg, elevationM: a.elevationM,
+    runwayEnds: [...ends].sort((x, y) => x.designator.localeCompare(y.designator))
+      .map(e => ({ designator: e.designator, runwayId: e.runwayId, trueHeadingDeg: e.trueHeadingDeg })),
+  }
+}
+
+/** Everything a briefing shows, from an analysed stored profile and the limits. Pure. */
+export function assembleBriefing(stored: StoredProfileAnalysis, limitSet: BriefingLimits, now: Date, at: Date) {
+  const { analysis, profile, airfield, runwayEnds, declination } = stored
+  const checks = evaluateLimits(analysis, limitSet.limits, limitSet.limitsFor)
+  const ranking = rankRunwayEnds(analysis.runwayEnds, checks)
+  const ends = analysis.runwayEnds.map((end) => {
+    const own = checks.filter(c => c.designator === end.designator)
+    const reciprocal = runwayEnds.find(r => r.designator === end.designator)
+    const other = reciprocal ? runwayEnds.find(r => r.runwayId === reciprocal.runwayId && r.id !== reciprocal.id) : undefined
+    return {
+      ...end,
+      reciprocalDesignator: other?.designator ?? null,
+      limits: limitSet.limitsFor(end.designator),
+      checks: own,
+      exceeded: own.filter(c => c.state === 'exceeded'),
+      near: own.filter(c => c.state === 'near'),
+      rank: ranking.find(r => r.designator === end.designator)!.rank,
+      // Every filed level's components (above 600 m too), for the polar display and its table.
+      levels: analysis.levels.map(l => ({ sourceIndex: l.sourceIndex, heightAglM: l.heightAglM,
+        ...runwayComponents(l.directionDeg, l.speedKt, end.trueHeadingDeg) })),
+    }
+  })
+  return {
+    at: at.toISOString(),
+    generatedAt: now.toISOString(),
+    airfield: publicAirfield(airfield, runwayEnds),
+    profile: publicProfile(profile, now),
+    declination: { declinationDeg: declination.declinationDeg, source: declination.source, reason: declination.reason,
+      date: declination.date.toISOString() },
+    limits: { values: limitSet.limits, source: limitSet.source },
+    // The engine's own input, echoed so anyone can re-run it and compare.
+    input: {
+      levels: levelInputsOf(stored.levels),
+      heightReference: profile.heightReference,
+      elevationM: airfield.elevationM,
+      runwayEnds: runwayEndInputsOf(runwayEnds, declination.declinationDeg),
+    },
+    levels: analysis.levels,
+    grid: analysis.grid,
+    feetSteps: feetSteps(analysis.grid, analysis.runwayEnds),
+    coverage: analysis.coverage,
+    surface: analysis.surface,
+    surfaceReason: analysis.surfaceReason,
+    shear: analysis.shear,
+    runwayEnds: ends,
+    airfieldChecks: checks.filter(c => c.designator === null),
+    checks,
+    ranking,
+    convective: analysis.convective,
+    warnings: analysis.warnings,
+    caution: VEERLINE_CAUTION,
+  }
+}
+
+export type Briefing = ReturnType<typeof assembleBriefing>
+
+/**
+ * The profile a briefing is for: the one asked for by id, else the newest active profile valid at `at`,
+ * else the newest profile (not withdrawn) that began before `at` (it will show as expired or superseded).
+ */
+export async function selectBriefingProfile(airfieldId: number, at: Date, profileId?: number): Promise<Profile | null> {
+  const db = useDB()
+  const p = schema.profiles
+  if (profileId != null) {
+    const [row] = await db.select().from(p).where(and(eq(p.id, profileId), eq(p.airfieldId, airfieldId)))
+    return row ?? null
+  }
+  const [valid] = await db.select().from(p)
+    .where(and(eq(p.airfieldId, airfieldId), eq(p.status, 'active'), lte(p.validFrom, at), gte(p.validTo, at)))
+    .orderBy(desc(p.validFrom), desc(p.id)).limit(1)
+  if (valid) return valid
+  const [latest] = await db.select().from(p)
+    .where(and(eq(p.airfieldId, airfieldId), ne(p.status, 'withdrawn'), lte(p.validFrom, at)))
+    .orderBy(desc(p.validFrom), desc(p.id)).limit(1)
+  return latest ?? null
+}
+
+export async function loadAirfieldWithEnds(code: string) {
+  const db = useDB()
+  const [airfield] = await db.select().from(schema.airfields).where(eq(schema.airfields.code, code.toUpperCase()))
+  if (!airfield) throw createError({ statusCode: 404, statusMessage: `No airfield with the code ${code.toUpperCase()}` })
+  const ends = await db.select().from(schema.runwayEnds).where(eq(schema.runwayEnds.airfieldId, airfield.id))
+  return { airfield, ends }
+}
+
+/** Analyses one profile with the airfield already loaded. */
+export async function analyseProfileRow(profile: Profile, airfield: Airfield, ends: RunwayEnd[]) {
+  const levels = await useDB().select().from(schema.profileLevels)
+    .where(eq(schema.profileLevels.profileId, profile.id)).orderBy(asc(schema.profileLevels.seq))
+  return analyseStored(profile, airfield, ends, levels)
+}
+
+export async function loadBriefing(code: string, opts: { at?: Date, profileId?: number }) {
+  const now = new Date()
+  const at = opts.at ?? now
+  const { airfield, ends } = await loadAirfieldWithEnds(code)
+  const profile = await selectBriefingProfile(airfield.id, at, opts.profileId)
+  if (!profile) {
+    if (opts.profileId != null) {
+      throw createError({ statusCode: 404, statusMessage: `Profile ${opts.profileId} is not a profile of ${airfield.code}` })
+    }
+    return { briefing: null, airfield: publicAirfield(airfield, ends), at: at.toISOString(),
+      message: `No wind profile has been filed for ${airfield.code} at or before ${at.toISOString()}`, caution: VEERLINE_CAUTION }
+  }
+  const stored = await analyseProfileRow(profile, airfield, ends)
+  return { briefing: assembleBriefing(stored, await effectiveLimits(airfield.id), now, at), caution: VEERLINE_CAUTION }
+}
+
+export type { ProfileAnalysis, Limits }
+
+/** One line per airfield for the briefings list: its profile in force now and what it crosses. */
+export async function briefingSummaries() {
+  const now = new Date()
+  const db = useDB()
+  const airfields = await db.select().from(schema.airfields).orderBy(asc(schema.airfields.code))
+  const allEnds = await db.select().from(schema.runwayEnds)
+  return Promise.all(airfields.map(async (airfield) => {
+    const ends = allEnds.filter(e => e.airfieldId === airfield.id)
+    const profile = await selectBriefingProfile(airfield.id, now)
+    if (!profile) return { code: airfield.code, name: airfield.name, runwayEnds: ends.map(e => e.designator).sort(), profile: null, exceededCount: 0, bestEnd: null }
+    const stored = await analyseProfileRow(profile, airfield, ends)
+    const limitSet = await effectiveLimits(airfield.id)
+    const checks = evaluateLimits(stored.analysis, limitSet.limits, limitSet.limitsFor)
+    const ranking = rankRunwayEnds(stored.analysis.runwayEnds, checks)
+    return {
+      code: airfield.code, name: airfield.name, runwayEnds: ends.map(e => e.designator).sort(),
+      profile: publicProfile(profile, now),
+      exceededCount: checks.filter(c => c.state === 'exceeded').length,
+      bestEnd: ranking[0]?.withinLimits ? ranking[0].designator : null,
+    }
+  }))
+}

@@ -1,0 +1,46 @@
+import { and, desc, eq, schema, useDB } from '../../utils/db'
+
+/** The signed-in user's receipt for one profile version, if they marked it read. */
+export async function receiptOf(userId: number, profileId: number) {
+  const [row] = await useDB().select().from(schema.briefingReceipts)
+    .where(and(eq(schema.briefingReceipts.userId, userId), eq(schema.briefingReceipts.profileId, profileId)))
+  return row ? { id: row.id, profileId: row.profileId, readAt: row.readAt.toISOString() } : null
+}
+
+/**
+ * Receipts with who read which version. A receipt is stale once its profile is no longer the active one
+ * (superseded by a newer profile, or withdrawn).
+ */
+export async function listReceipts(filter: { airfieldId?: number, profileId?: number, userId?: number }) {
+  const r = schema.briefingReceipts
+  const p = schema.profiles
+  const conditions = [
+    filter.airfieldId != null ? eq(r.airfieldId, filter.airfieldId) : undefined,
+    filter.profileId != null ? eq(r.profileId, filter.profileId) : undefined,
+    filter.userId != null ? eq(r.userId, filter.userId) : undefined,
+  ].filter(c => c !== undefined)
+  const rows = await useDB().select({
+    id: r.id, readAt: r.readAt, profileId: r.profileId,
+    userId: schema.users.id, userName: schema.users.name, userEmail: schema.users.email,
+    airfieldCode: schema.airfields.code,
+    profileStatus: p.status, validFrom: p.validFrom, validTo: p.validTo, supersededById: p.supersededById,
+  }).from(r)
+    .innerJoin(schema.users, eq(schema.users.id, r.userId))
+    .innerJoin(p, eq(p.id, r.profileId))
+    .innerJoin(schema.airfields, eq(schema.airfields.id, r.airfieldId))
+    .where(conditions.length ? and(...conditions) : undefined)
+    .orderBy(desc(r.readAt), desc(r.id)).limit(500)
+  return rows.map(row => ({
+    id: row.id,
+    readAt: row.readAt.toISOString(),
+    profileId: row.profileId,
+    airfield: row.airfieldCode,
+    user: { id: row.userId, name: row.userName, email: row.userEmail },
+    profile: { status: row.profileStatus, validFrom: row.validFrom.toISOString(), validTo: row.validTo.toISOString(),
+      supersededById: row.supersededById },
+    stale: row.profileStatus !== 'active',
+    staleReason: row.profileStatus === 'superseded'
+      ? `Profile ${row.profileId} has been superseded${row.supersededById ? ` by profile ${row.supersededById}` : ''}`
+      : row.profileStatus === 'withdrawn' ? `Profile ${row.profileId} has been withdrawn` : null,
+  }))
+}

@@ -1,0 +1,42 @@
+// Coded reports pasted by a dispatcher: each line a METAR/SPECI (surface wind) or a TAF (WShhh/dddffKT groups).
+import { parseCodedReport, WindValidationError, type LevelInput } from '../../../../shared/wind'
+import type { ImportIssue } from './csv'
+
+export type CodedLevels = {
+  levels: LevelInput[]
+  lines: number[]
+  reports: { line: number, kind: string, notes: string[] }[]
+  issues: ImportIssue[]
+}
+
+const heightKeyM = (l: LevelInput) => Math.round((l.heightM ?? (l.heightFt ?? 0) * 0.3048) * 100)
+
+export function parseCodedLines(text: string): CodedLevels {
+  const out: CodedLevels = { levels: [], lines: [], reports: [], issues: [] }
+  const seen = new Map<number, number>()
+  text.split(/\r\n|\n|\r/).forEach((raw, i) => {
+    const line = i + 1
+    if (raw.trim() === '') return
+    try {
+      const report = parseCodedReport(raw, line)
+      const notes = [...report.notes]
+      for (const level of report.levels) {
+        const key = heightKeyM(level)
+        if (seen.has(key)) {
+          notes.push(`A level at this height came already from line ${seen.get(key)}; this one is left out.`)
+          continue
+        }
+        seen.set(key, line)
+        out.levels.push(level)
+        out.lines.push(line)
+      }
+      if (!report.levels.length) notes.push('No wind level in this line.')
+      out.reports.push({ line, kind: report.kind, notes })
+    }
+    catch (err) {
+      if (!(err instanceof WindValidationError)) throw err
+      for (const issue of err.issues) out.issues.push({ line, field: issue.field, message: issue.message })
+    }
+  })
+  return out
+}

@@ -1,0 +1,27 @@
+/**
+ * Veerline wind engine: runway components, shear in the lowest 600 m and convective context.
+ * Plain TypeScript: functions in, numbers out. The only error thrown is `WindValidationError`.
+ *
+ * Main entry: `analyseProfile(input)`. Building blocks are exported for routes, forms and tests.
+ */
+export type * from './types'
+export { WindValidationError } from './errors'
+export {
+  MPS_PER_KT, M_PER_FT, KMH_PER_KT, KMH_PER_MPS,
+  ktToMps, mpsToKt, ktToKmh, kmhToKt, mpsToKmh, kmhToMps, ftToM, mToFt,
+} from '../units'
+export { normaliseHeadingDeg, signedAngleDiffDeg } from './angles'
+export { windToUV, uvToWind } from './vector'
+export {
+  runwayComponents, designatorMismatch, designatorHeadingDeg, reciprocalHeadingDeg, DESIGNATOR_TOLERANCE_DEG,
+} from './runway'
+export { pressureToHeightM, heightToPressureHpa } from './atmosphere'
+export { magneticDeclinationDeg, magneticFromTrue, trueFromMagnetic, WMM2025_START, WMM2025_END } from './magnetic'
+export { runwayTrueBearingDeg } from './geodesy'
+export { stormRelativeHelicity, bunkersStormMotion, streamwiseVorticityShare, BUNKERS_DEVIATION_MPS } from './convective'
+export { parseCodedReport } from './coded'
+export {
+  normaliseProfile, DEFAULT_SHEAR_CLASS_BOUNDS_KT_PER_100FT, SURFACE_LEVEL_MAX_AGL_M, MAX_SPEED_KT, MAX_HEIGHT_AGL_M,
+} from './validate'
+export { levelInputSchema, profileLevelsSchema, runwayEndInputSchema, profileAnalysisInputSchema } from './schema'
+export { analyseProfile, classifyShear, pathChange, GRID_STEP_M, GRID_TOP_M, ALERTING_PRACTICE_KT } from './analyse'
