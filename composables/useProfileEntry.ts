@@ -1,6 +1,7 @@
 import { toTypedSchema } from '@vee-validate/zod'
 import { useFieldArray, useForm } from 'vee-validate'
 import { profileInputSchema } from '#shared/utils/profile-schema'
+import { M_PER_FT } from '#shared/units'
 
 export type HeightKey = 'heightM' | 'heightFt' | 'pressureHpa'
 export type SpeedKey = 'speedKt' | 'speedMps'
@@ -34,7 +35,7 @@ export function sortedLevels(levels: LevelDraft[], height: HeightKey): LevelDraf
 /** Levels read from coded reports (heights in m or ft, speeds in kt) as table rows in m and kt. */
 export function levelsFromCoded(levels: Record<string, number>[]): LevelDraft[] {
   return levels.map(l => ({
-    heightM: l.heightM ?? Math.round((l.heightFt ?? 0) * M_PER_FT_EXACT * 10) / 10,
+    heightM: l.heightM ?? Math.round((l.heightFt ?? 0) * M_PER_FT * 10) / 10,
     directionDeg: l.directionDeg,
     speedKt: l.speedKt,
     ...(l.gustKt === undefined ? {} : { gustKt: l.gustKt }),

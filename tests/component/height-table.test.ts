@@ -3,7 +3,7 @@ import { mountSuspended } from '@nuxt/test-utils/runtime'
 import type { VueWrapper } from '@vue/test-utils'
 import BriefingHeightTable from '~/components/briefing/BriefingHeightTable.vue'
 import { usePreferencesStore } from '~/stores/preferences'
-import { runwayComponents } from '../../server/utils/wind'
+import { runwayComponents } from '#shared/wind'
 import { polarData } from './support/wind'
 
 // A steady wind from 220° at 30 kt at every height, on runway 18 and its reciprocal 36: the FAA knowledge-test
@@ -64,7 +64,7 @@ describe('height table (components up to 600 m)', () => {
   it('in metres: the engine\'s 30 m steps only, 30 to 600 m (the filed 10 m level is left to the level table)', async () => {
     usePreferencesStore().heightUnit = 'm'
     const d = polarData(steady, ends[0]!)
-    // The engine's grid holds the 30 m steps and the filed levels (server/utils/wind/types.ts, GridPoint).
+    // The engine's grid holds the 30 m steps and the filed levels (shared/wind/types.ts, GridPoint).
     expect(d.byHeight.some(b => b.heightAglM === 10)).toBe(true)
     const wrapper = await mountSuspended(BriefingHeightTable, {
       props: { designator: '18', byHeight: d.byHeight, grid: d.grid, feetSteps: [], declinationDeg: 0 },

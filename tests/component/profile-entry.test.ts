@@ -4,10 +4,11 @@ import { defineComponent, h, nextTick } from 'vue'
 import { readBody, setResponseStatus } from 'h3'
 import { levelsFromCoded, rekeyLevel, sortedLevels, useProfileEntry } from '~/composables/useProfileEntry'
 import { previewRequestOf } from '~/composables/useProfilePreview'
-import { analyseProfile, WindValidationError } from '../../server/utils/wind'
+import { analyseProfile, WindValidationError } from '#shared/wind'
 
 type Entry = ReturnType<typeof useProfileEntry>
 
+const mounted: { unmount: () => void }[] = []
 /** Mounts a bare component that runs the entry composable, and hands the composable back to the test. */
 async function mountEntry(code = 'XTST', options: Parameters<typeof useProfileEntry>[1] = {}) {
   let entry: Entry | undefined
@@ -17,14 +18,15 @@ async function mountEntry(code = 'XTST', options: Parameters<typeof useProfileEn
       return () => h('div')
     },
   })
-  await mountSuspended(Harness)
+  mounted.push(await mountSuspended(Harness))
   return entry!
 }
 
 const rows = (e: Entry) => e.fields.value.map(f => f.value)
 
 // The preview endpoint as the server answers it: the real engine on the body, runway 18 (true heading 180°).
-let previewBodies: unknown[] = []
+let previewBodies: { airfield?: string }[] = []
+const bodiesFor = (code: string) => previewBodies.filter(b => b.airfield === code)
 // Endpoints registered by a test, taken away after it (a later registration of the same path does not replace one).
 let unregister: (() => void)[] = []
 function endpoint(...args: Parameters<typeof registerEndpoint>) {
@@ -52,6 +54,7 @@ beforeEach(() => {
 })
 afterEach(() => {
   vi.useRealTimers()
+  for (const w of mounted.splice(0)) w.unmount()
   for (const off of unregister) off()
   unregister = []
 })
@@ -115,7 +118,8 @@ describe('profile entry: the live preview', () => {
   it('asks once when the typing settles, and shows the engine\'s figures (FAA example: 220° at 30 kt on 18)', async () => {
     enginePreview()
     vi.useFakeTimers()
-    const e = await mountEntry('XTST', { previewDebounceMs: 400 })
+    // Its own airfield code, so only this entry's requests are counted.
+    const e = await mountEntry('XDEB', { previewDebounceMs: 400 })
     Object.assign(e.fields.value[0]!.value, { directionDeg: 220, speedKt: 30 })
     Object.assign(e.fields.value[1]!.value, { directionDeg: 220, speedKt: 25 })
     await nextTick()
@@ -124,12 +128,12 @@ describe('profile entry: the live preview', () => {
     e.fields.value[1]!.value.speedKt = 30
     await nextTick()
     await vi.advanceTimersByTimeAsync(399)
-    expect(previewBodies).toHaveLength(0)
+    expect(bodiesFor('XDEB')).toHaveLength(0)
     await vi.advanceTimersByTimeAsync(1)
     vi.useRealTimers()
-    await vi.waitUntil(() => e.preview.analysis.value !== null, { timeout: 5000, interval: 10 })
-    expect(previewBodies).toHaveLength(1)
-    expect(previewBodies[0]).toMatchObject({ airfield: 'XTST', levels: [{ speedKt: 30 }, { speedKt: 30 }] })
+    await vi.waitUntil(() => e.preview.analysis.value !== null, { timeout: 20_000, interval: 10 })
+    expect(bodiesFor('XDEB')).toHaveLength(1)
+    expect(bodiesFor('XDEB')[0]).toMatchObject({ levels: [{ speedKt: 30 }, { speedKt: 30 }] })
     const surface = e.preview.analysis.value!.runwayEnds[0]!.surface!
     // FAA knowledge-test crosswind chart example, exact values 22.98 and 19.28 kt.
     expect(surface.headwindKt).toBeCloseTo(22.98, 2)

@@ -1,7 +1,7 @@
 // Test data for the display pieces, made by the project's own wind engine from a few levels, so a component is
 // checked on the figures the server would send (the engine itself is checked against references in tests/unit).
-import { analyseProfile, runwayComponents, MPS_PER_KT } from '../../../server/utils/wind'
-import type { LevelInput, RunwayEndInput } from '../../../server/utils/wind'
+import { analyseProfile, runwayComponents, MPS_PER_KT } from '#shared/wind'
+import type { LevelInput, RunwayEndInput } from '#shared/wind'
 
 export { MPS_PER_KT }
 
