@@ -1,5 +1,5 @@
 // Geometry of the polar wind display: plain functions, unit-tested.
-import { ticks } from 'd3'
+import { ticks } from 'd3-array'
 
 /** Screen point of a bearing (degrees clockwise from north, drawn with north up) at radius r from (cx, cy). */
 export function polarXY(bearingDeg: number, r: number, cx: number, cy: number) {

@@ -9,6 +9,9 @@ export const briefingQuerySchema = z.object({
   at: isoTime.optional(),
   profile: z.coerce.number({ invalid_type_error: 'must be a profile id' }).int('must be a whole number')
     .positive('must be a positive profile id').optional(),
+  // 'trade' (the default): figures rounded to the trade's precision and levels thinned for display;
+  // 'full': every level and every figure as the engine computed it.
+  precision: z.enum(['trade', 'full'], { errorMap: () => ({ message: 'must be trade or full' }) }).optional(),
 }).strict()
 
 export const trendQuerySchema = z.object({

@@ -1,5 +1,4 @@
 // How figures are shown to a reader: conversions for display only (the engine works in kt and metres).
-import { z } from 'zod'
 
 /** Exact: 1 kt = 1852/3600 m/s (international nautical mile of 1852 m). */
 export const MPS_PER_KT_EXACT = 1852 / 3600
@@ -12,12 +11,6 @@ export type HeadingRef = 'true' | 'magnetic'
 
 export type DisplayPreferences = { speedUnit: SpeedUnit, heightUnit: HeightUnit, headingRef: HeadingRef }
 export const DEFAULT_PREFERENCES: DisplayPreferences = { speedUnit: 'kt', heightUnit: 'ft', headingRef: 'true' }
-
-export const preferencesSchema = z.object({
-  speedUnit: z.enum(['kt', 'mps'], { errorMap: () => ({ message: 'Speed unit must be kt or mps' }) }).optional(),
-  heightUnit: z.enum(['ft', 'm'], { errorMap: () => ({ message: 'Height unit must be ft or m' }) }).optional(),
-  headingRef: z.enum(['true', 'magnetic'], { errorMap: () => ({ message: 'Headings must be true or magnetic' }) }).optional(),
-}).strict().refine(v => Object.keys(v).length > 0, { message: 'Nothing to change: give speedUnit, heightUnit or headingRef' })
 
 export const SPEED_UNIT_LABEL: Record<SpeedUnit, string> = { kt: 'kt', mps: 'm/s' }
 export const HEIGHT_UNIT_LABEL: Record<HeightUnit, string> = { ft: 'ft', m: 'm' }

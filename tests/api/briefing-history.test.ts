@@ -9,7 +9,7 @@ describe('briefing input is what was filed', () => {
   for (const code of ['XVAL', 'XCST', 'XHGH']) {
     it(`${code}: the levels the briefing computed from are the stored levels of that profile version`, async () => {
       const pilot = await signedIn('pilot')
-      const res = await pilot.get(`/api/airfields/${code}/briefing`)
+      const res = await pilot.get(`/api/airfields/${code}/briefing?precision=full`)
       expect(res.status).toBe(200)
       const { briefing } = res.body
       const filed = await pilot.get(`/api/profiles/${briefing.profile.id}`)

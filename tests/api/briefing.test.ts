@@ -43,7 +43,7 @@ describe('GET /api/airfields/{code}/briefing', () => {
       expect(ids.length).toBe(8) // the demo files a profile every 3 hours of the day
       let exceededSeen = 0
       for (const id of ids) {
-        const res = await pilot.get(`/api/airfields/${code}/briefing?profile=${id}`)
+        const res = await pilot.get(`/api/airfields/${code}/briefing?profile=${id}&precision=full`)
         expect(res.status).toBe(200)
         const b = res.body.briefing
         expect(b.profile.id).toBe(id)
@@ -87,7 +87,7 @@ describe('GET /api/airfields/{code}/briefing', () => {
   }
 
   it('surface components follow headwind = V·cos θ, crosswind = V·sin θ (trade formula; 1 kt = 1852/3600 m/s exactly)', async () => {
-    const res = await pilot.get('/api/airfields/XCST/briefing')
+    const res = await pilot.get('/api/airfields/XCST/briefing?precision=full')
     const b = res.body.briefing
     const surface = b.input.levels[0] // the lidar's lowest level, 30 ft, speed filed in m/s
     const speedKt = surface.speedMps / (1852 / 3600)
@@ -121,7 +121,7 @@ describe('GET /api/airfields/{code}/briefing', () => {
   })
 
   it('gives components every 100 ft that agree with the 30 m grid at shared heights (0 ft = 0 m)', async () => {
-    const b = (await pilot.get('/api/airfields/XHGH/briefing')).body.briefing
+    const b = (await pilot.get('/api/airfields/XHGH/briefing?precision=full')).body.briefing
     const steps = b.feetSteps as { heightAglFt: number, heightAglM: number, speedKt: number, directionDeg: number }[]
     expect(steps.length).toBeGreaterThan(10)
     for (const s of steps) expect(s.heightAglM).toBeCloseTo(s.heightAglFt * 0.3048, 9) // 1 ft = 0.3048 m exactly
@@ -149,7 +149,7 @@ describe('GET /api/airfields/{code}/trend', () => {
     expect(res.body.thresholds.maxLayerShearKtPer100ft).toBe(DEFAULT_LIMITS.maxLayerShearKtPer100ft)
     expect(res.body.thresholds.perEnd.map((p: { designator: string }) => p.designator)).toEqual(['11', '29'])
     for (const point of res.body.points.slice(0, 3)) {
-      const b = (await pilot.get(`/api/airfields/XHGH/briefing?profile=${point.profileId}`)).body.briefing
+      const b = (await pilot.get(`/api/airfields/XHGH/briefing?profile=${point.profileId}&precision=full`)).body.briefing
       expect(point.strongestShearKtPer100ft).toBe(b.shear.strongestLayer.shearKtPer100ft)
       const end = b.runwayEnds.find((e: { designator: string }) => e.designator === '11')
       const p11 = point.ends.find((e: { designator: string }) => e.designator === '11')

@@ -6,20 +6,30 @@ function db(command: 'start' | 'stop') {
   execFileSync('bash', ['scripts/db.sh', command], { stdio: 'pipe', env: process.env, timeout: 60_000 })
 }
 
+async function live() {
+  const res = await fetch(`${BASE_URL}/healthz/live`)
+  return { status: res.status, body: await res.json() }
+}
+
 async function health() {
   const res = await fetch(`${BASE_URL}/healthz`)
   return { status: res.status, body: await res.json() }
 }
 
-describe('/healthz', () => {
-  it('is 200 with the database up, 503 with a clear message while it is down, and recovers by itself', async () => {
+describe('/healthz and /healthz/live', () => {
+  it('is 200 with the database up, 503 with a clear message while it is down, and recovers by itself; liveness stays 200 throughout', async () => {
     expect((await health()).status).toBe(200)
+    expect((await live()).status).toBe(200)
     db('stop')
     try {
       const down = await health()
       expect(down.status).toBe(503)
       expect(down.body.database.state).toBe('down')
       expect(down.body.database.message).toMatch(/database does not answer/)
+      // Liveness is the process, not the database: load balancers keep the instance while MariaDB restarts.
+      const alive = await live()
+      expect(alive.status).toBe(200)
+      expect(alive.body).toEqual({ status: 'ok' })
     }
     finally {
       db('start')

@@ -1,4 +1,4 @@
-import { preferencesSchema } from '#shared/utils/display-units'
+import { preferencesSchema } from '#shared/utils/preferences-schema'
 import { preferencesOf } from '../../domain/accounts/preferences'
 
 // Changes some or all of the signed-in user's display preferences; answers the whole set.

@@ -33,6 +33,8 @@ export const profiles = mysqlTable('profiles', {
 }, t => [
   index('profiles_airfield_valid').on(t.airfieldId, t.validFrom, t.validTo),
   index('profiles_airfield_status').on(t.airfieldId, t.status),
+  // The profiles still valid (current and upcoming) of every airfield at once, for the lists.
+  index('profiles_status_valid_to').on(t.status, t.validTo),
 ])
 
 // The levels exactly as filed (the public level shape: one height field, one speed field, an optional gust).

@@ -20,6 +20,11 @@ export function valuesOf(set: ThresholdSet | null | undefined): PartialLimits | 
 export async function effectiveLimits(airfieldId: number, db: DB | Tx = useDB()) {
   const t = schema.thresholdSets
   const rows = await db.select().from(t).where(or(eq(t.scopeKey, ORG_SCOPE), eq(t.airfieldId, airfieldId)))
+  return limitSetFromRows(rows, airfieldId)
+}
+
+/** effectiveLimits from limit set rows already read (any others in `rows` are ignored). Pure. */
+export function limitSetFromRows(rows: ThresholdSet[], airfieldId: number) {
   const org = rows.find(r => r.scopeKey === ORG_SCOPE)
   const field = rows.find(r => r.scopeKey === scopeKeyOf(airfieldId))
   const base: { source: LimitSource, values: PartialLimits | null }[] = [
@@ -27,7 +32,7 @@ export async function effectiveLimits(airfieldId: number, db: DB | Tx = useDB())
     { source: 'airfield', values: valuesOf(field) },
   ]
   const { limits, source } = layerLimits(base)
-  const ends = new Map(rows.filter(r => r.designator).map(r => [r.designator!, r]))
+  const ends = new Map(rows.filter(r => r.designator && r.airfieldId === airfieldId).map(r => [r.designator!, r]))
   const limitsFor = (designator: string): Limits => {
     const end = ends.get(designator)
     return end ? layerLimits([...base, { source: 'runway end', values: valuesOf(end) }]).limits : limits

@@ -7,9 +7,9 @@ import { createError } from 'h3'
 import type { Airfield, Profile, RunwayEnd } from '../../db/schema'
 import { runwayComponents, uvToWind, GRID_TOP_M, type GridPoint, type ProfileAnalysis, type RunwayEndAnalysis } from '../../../shared/wind'
 import { evaluateLimits, type LimitCheck, type Limits } from '../../../shared/limits'
-import { analyseStored, levelInputsOf, runwayEndInputsOf, type StoredProfileAnalysis } from '../profiles/analysis'
-import { and, asc, desc, eq, gte, lte, ne, schema, useDB } from '../../utils/db'
-import { effectiveLimits } from '../alerts/limits'
+import { levelInputsOf, runwayEndInputsOf, type StoredProfileAnalysis } from '../profiles/analysis'
+import { eq, schema, useDB } from '../../utils/db'
+import type { effectiveLimits } from '../alerts/limits'
 import { VEERLINE_CAUTION } from '../../../shared/utils/caution'
 
 /** The limits a briefing is held against: the safety office's sets layered over the defaults. */
@@ -192,27 +192,6 @@ export function assembleBriefing(stored: StoredProfileAnalysis, limitSet: Briefi
 
 export type Briefing = ReturnType<typeof assembleBriefing>
 
-/**
- * The profile a briefing is for: the one asked for by id, else the newest active profile valid at `at`,
- * else the newest profile (not withdrawn) that began before `at` (it will show as expired or superseded).
- */
-export async function selectBriefingProfile(airfieldId: number, at: Date, profileId?: number): Promise<Profile | null> {
-  const db = useDB()
-  const p = schema.profiles
-  if (profileId != null) {
-    const [row] = await db.select().from(p).where(and(eq(p.id, profileId), eq(p.airfieldId, airfieldId)))
-    return row ?? null
-  }
-  const [valid] = await db.select().from(p)
-    .where(and(eq(p.airfieldId, airfieldId), eq(p.status, 'active'), lte(p.validFrom, at), gte(p.validTo, at)))
-    .orderBy(desc(p.validFrom), desc(p.id)).limit(1)
-  if (valid) return valid
-  const [latest] = await db.select().from(p)
-    .where(and(eq(p.airfieldId, airfieldId), ne(p.status, 'withdrawn'), lte(p.validFrom, at)))
-    .orderBy(desc(p.validFrom), desc(p.id)).limit(1)
-  return latest ?? null
-}
-
 export async function loadAirfieldWithEnds(code: string) {
   const db = useDB()
   const [airfield] = await db.select().from(schema.airfields).where(eq(schema.airfields.code, code.toUpperCase()))
@@ -221,50 +200,4 @@ export async function loadAirfieldWithEnds(code: string) {
   return { airfield, ends }
 }
 
-/** Analyses one profile with the airfield already loaded. */
-export async function analyseProfileRow(profile: Profile, airfield: Airfield, ends: RunwayEnd[]) {
-  const levels = await useDB().select().from(schema.profileLevels)
-    .where(eq(schema.profileLevels.profileId, profile.id)).orderBy(asc(schema.profileLevels.seq))
-  return analyseStored(profile, airfield, ends, levels)
-}
-
-export async function loadBriefing(code: string, opts: { at?: Date, profileId?: number }) {
-  const now = new Date()
-  const at = opts.at ?? now
-  const { airfield, ends } = await loadAirfieldWithEnds(code)
-  const profile = await selectBriefingProfile(airfield.id, at, opts.profileId)
-  if (!profile) {
-    if (opts.profileId != null) {
-      throw createError({ statusCode: 404, statusMessage: `Profile ${opts.profileId} is not a profile of ${airfield.code}` })
-    }
-    return { briefing: null, airfield: publicAirfield(airfield, ends), at: at.toISOString(),
-      message: `No wind profile has been filed for ${airfield.code} at or before ${at.toISOString()}`, caution: VEERLINE_CAUTION }
-  }
-  const stored = await analyseProfileRow(profile, airfield, ends)
-  return { briefing: assembleBriefing(stored, await effectiveLimits(airfield.id), now, at), caution: VEERLINE_CAUTION }
-}
-
 export type { ProfileAnalysis, Limits }
-
-/** One line per airfield for the briefings list: its profile in force now and what it crosses. */
-export async function briefingSummaries() {
-  const now = new Date()
-  const db = useDB()
-  const airfields = await db.select().from(schema.airfields).orderBy(asc(schema.airfields.code))
-  const allEnds = await db.select().from(schema.runwayEnds)
-  return Promise.all(airfields.map(async (airfield) => {
-    const ends = allEnds.filter(e => e.airfieldId === airfield.id)
-    const profile = await selectBriefingProfile(airfield.id, now)
-    if (!profile) return { code: airfield.code, name: airfield.name, runwayEnds: ends.map(e => e.designator).sort(), profile: null, exceededCount: 0, bestEnd: null }
-    const stored = await analyseProfileRow(profile, airfield, ends)
-    const limitSet = await effectiveLimits(airfield.id)
-    const checks = evaluateLimits(stored.analysis, limitSet.limits, limitSet.limitsFor)
-    const ranking = rankRunwayEnds(stored.analysis.runwayEnds, checks)
-    return {
-      code: airfield.code, name: airfield.name, runwayEnds: ends.map(e => e.designator).sort(),
-      profile: publicProfile(profile, now),
-      exceededCount: checks.filter(c => c.state === 'exceeded').length,
-      bestEnd: ranking[0]?.withinLimits ? ranking[0].designator : null,
-    }
-  }))
-}

@@ -1,0 +1,167 @@
+/**
+ * HTTP load benchmark (run by scripts/bench-http.sh, which starts the database and the built server).
+ * Routes are taken in turn in one run with autocannon; every figure is also given as a ratio to the liveness
+ * route measured in the same phase of the same run, since absolute figures on a shared machine say little.
+ * Phase 1: the demo plus bench airfields up to 10 airfields; phase 2: grown to 203 airfields and 1,000 users.
+ * Then the sizes: a 5,000-level briefing's JSON and page HTML, and the briefing page's JavaScript loaded up front
+ * (gzip) against a bare Nuxt page built from the same node_modules.
+ */
+import { writeFileSync, mkdirSync } from 'node:fs'
+import { loadavg, cpus } from 'node:os'
+import { gzipSync } from 'node:zlib'
+import autocannon from 'autocannon'
+import { drizzle } from 'drizzle-orm/mysql2'
+import mysql from 'mysql2/promise'
+import * as schema from '../../server/db/schema'
+import { benchCode, growTo, DEEP_LEVELS, SHALLOW_LEVELS } from './scale-seed'
+
+const BASE = process.env.VEERLINE_BENCH_URL ?? 'http://127.0.0.1:3102'
+const BARE = process.env.VEERLINE_BENCH_BARE_URL ?? ''
+const SECONDS = Number(process.env.VEERLINE_BENCH_SECONDS ?? 5)
+const CONNECTIONS = Number(process.env.VEERLINE_BENCH_CONNECTIONS ?? 32)
+const OUT_DIR = process.env.VEERLINE_BENCH_OUT ?? '.data/bench'
+const DEEP = benchCode(0) // every profile with 5,000 levels
+const SHALLOW = benchCode(1) // 20 levels
+
+type Row = { phase: string, route: string, path: string, reqPerS: number, p50Ms: number, p99Ms: number, non2xx: number, errors: number, ratioToLive: number }
+
+async function signIn(email: string, password: string) {
+  const res = await fetch(`${BASE}/api/session`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email, password }) })
+  if (res.status !== 200) throw new Error(`sign-in of ${email} failed: ${res.status} ${await res.text()}`)
+  const cookie = res.headers.getSetCookie().map(c => c.split(';')[0]!).find(c => c.startsWith('nuxt-session='))
+  if (!cookie) throw new Error('no session cookie')
+  return cookie
+}
+
+async function load(path: string, cookie: string | null, seconds: number) {
+  const r = await autocannon({
+    url: `${BASE}${path}`, connections: CONNECTIONS, duration: seconds,
+    headers: cookie ? { cookie } : {},
+  })
+  return { reqPerS: r.requests.average, p50Ms: r.latency.p50, p99Ms: r.latency.p99, non2xx: r.non2xx, errors: r.errors + r.timeouts }
+}
+
+async function phase(name: string, cookie: string, routes: [string, string, boolean][]): Promise<Row[]> {
+  const rows: Row[] = []
+  let live = 0
+  for (const [route, path, signed] of routes) {
+    const c = signed ? cookie : null
+    const first = await fetch(`${BASE}${path}`, { headers: c ? { cookie: c } : {} })
+    if (first.status !== 200) throw new Error(`${path} answered ${first.status}: ${(await first.text()).slice(0, 300)}`)
+    await load(path, c, 1) // warm-up, not counted
+    const m = await load(path, c, SECONDS)
+    if (route === 'liveness') live = m.reqPerS
+    const row = { phase: name, route, path, ...m, ratioToLive: live ? m.reqPerS / live : Number.NaN }
+    rows.push(row)
+    console.log(`  ${name.padEnd(13)} ${route.padEnd(22)} ${m.reqPerS.toFixed(0).padStart(7)} req/s  p50 ${String(m.p50Ms).padStart(4)} ms  p99 ${String(m.p99Ms).padStart(5)} ms  x${row.ratioToLive.toFixed(3)}${m.non2xx || m.errors ? `  (${m.non2xx} non-2xx, ${m.errors} errors)` : ''}`)
+  }
+  return rows
+}
+
+/** The JavaScript a page loads before it runs: its module entry and the modules it preloads, each gzipped. */
+async function upFrontJs(base: string, path: string, cookie: string | null) {
+  const res = await fetch(`${base}${path}`, { headers: cookie ? { cookie } : {} })
+  const html = await res.text()
+  if (res.status !== 200) throw new Error(`${path} answered ${res.status}: ${html.slice(0, 300)}`)
+  const srcs = new Set<string>()
+  for (const m of html.matchAll(/<script[^>]+type="module"[^>]+src="([^"]+)"|<script[^>]+src="([^"]+)"[^>]+type="module"/g)) srcs.add((m[1] ?? m[2])!)
+  for (const m of html.matchAll(/<link[^>]+rel="modulepreload"[^>]+href="([^"]+)"|<link[^>]+href="([^"]+)"[^>]+rel="modulepreload"/g)) srcs.add((m[1] ?? m[2])!)
+  let gzipBytes = 0
+  let rawBytes = 0
+  for (const src of srcs) {
+    const body = Buffer.from(await (await fetch(new URL(src, base))).arrayBuffer())
+    rawBytes += body.length
+    gzipBytes += gzipSync(body).length
+  }
+  return { files: srcs.size, rawBytes, gzipBytes, htmlBytes: Buffer.byteLength(html) }
+}
+
+const kb = (n: number) => `${(n / 1024).toFixed(1)} KB`
+const verdict = (ok: boolean) => (ok ? 'pass' : 'FAIL')
+
+async function main() {
+  const connection = await mysql.createConnection({ uri: process.env.DATABASE_URL!, timezone: 'Z' })
+  const db = drizzle(connection, { schema, mode: 'default' })
+  console.log(`[bench:http] ${CONNECTIONS} connections, ${SECONDS} s per route (after 1 s warm-up), ${cpus().length} cores, load average ${loadavg().map(x => x.toFixed(2)).join(' ')}`)
+
+  await growTo(db, 7)
+  const cookie = await signIn('pilot@veerline.example', 'veerline-demo')
+  const routes = (): [string, string, boolean][] => [
+    ['liveness', '/healthz/live', false],
+    ['readiness (DB ping)', '/healthz', false],
+    ['session', '/api/session', true],
+    ['airfield list', '/api/airfields', true],
+    ['home list', '/api/briefings', true],
+    [`briefing ${SHALLOW_LEVELS} levels`, `/api/airfields/${SHALLOW}/briefing`, true],
+    [`briefing ${DEEP_LEVELS} levels`, `/api/airfields/${DEEP}/briefing`, true],
+  ]
+  const rows = await phase('10 airfields', cookie, routes())
+  const t0 = Date.now()
+  await growTo(db, 200)
+  const [[{ n }]] = await connection.query('SELECT COUNT(*) AS n FROM airfields') as unknown as [[{ n: number }]]
+  console.log(`[bench:http] grown to ${n} airfields in ${((Date.now() - t0) / 1000).toFixed(0)} s`)
+  rows.push(...await phase(`${n} airfields`, cookie, routes()))
+  await connection.end()
+
+  // Sizes
+  const json = await fetch(`${BASE}/api/airfields/${DEEP}/briefing`, { headers: { cookie } })
+  const jsonBytes = Buffer.byteLength(await json.text())
+  const page = await upFrontJs(BASE, `/briefings/${DEEP}`, cookie)
+  const bare = BARE ? await upFrontJs(BARE, '/', null) : null
+
+  const get = (p: string, route: string) => rows.find(r => r.phase === p && r.route === route)!
+  const small = '10 airfields'
+  const big = `${n} airfields`
+  const session = get(big, 'session')
+  console.log('\n| phase | route | req/s | p50 ms | p99 ms | x liveness | target | result |')
+  console.log('| --- | --- | --- | --- | --- | --- | --- | --- |')
+  const checks: boolean[] = []
+  for (const r of rows) {
+    let target = ''
+    let ok: boolean | null = null
+    const phaseSession = get(r.phase, 'session')
+    if (r.route === 'session') {
+      target = '≥ 0.25x liveness'
+      ok = r.ratioToLive >= 0.25
+    }
+    else if (!['liveness', 'readiness (DB ping)'].includes(r.route)) {
+      target = '≥ 0.7x session, p99 ≤ 25 ms'
+      ok = r.reqPerS >= 0.7 * phaseSession.reqPerS && r.p99Ms <= 25
+    }
+    if (r.non2xx || r.errors) ok = false
+    if (ok !== null) checks.push(ok)
+    console.log(`| ${r.phase} | ${r.route} | ${r.reqPerS.toFixed(0)} | ${r.p50Ms} | ${r.p99Ms} | ${r.ratioToLive.toFixed(3)} | ${target} | ${ok === null ? '' : verdict(ok)} |`)
+  }
+  console.log('\n| flat in | compared (each as x liveness of its phase) | ratio | target | result |')
+  console.log('| --- | --- | --- | --- | --- |')
+  const flat = (label: string, a: Row, b: Row) => {
+    const ratio = b.ratioToLive / a.ratioToLive
+    const ok = ratio >= 0.8 && ratio <= 1.25
+    checks.push(ok)
+    console.log(`| ${label} | ${a.phase} ${a.route} → ${b.phase} ${b.route} | ${ratio.toFixed(2)} | within 20% | ${verdict(ok)} |`)
+  }
+  flat('airfields', get(small, 'airfield list'), get(big, 'airfield list'))
+  flat('airfields', get(small, 'home list'), get(big, 'home list'))
+  flat('airfields', get(small, `briefing ${SHALLOW_LEVELS} levels`), get(big, `briefing ${SHALLOW_LEVELS} levels`))
+  flat('levels', get(big, `briefing ${SHALLOW_LEVELS} levels`), get(big, `briefing ${DEEP_LEVELS} levels`))
+
+  console.log('\n| size | measured | target | result |')
+  console.log('| --- | --- | --- | --- |')
+  const size = (label: string, value: string, target: string, ok: boolean | null) => {
+    if (ok !== null) checks.push(ok)
+    console.log(`| ${label} | ${value} | ${target} | ${ok === null ? 'not measured' : verdict(ok)} |`)
+  }
+  size(`briefing JSON, ${DEEP_LEVELS} levels`, kb(jsonBytes), '≤ 300 KB', jsonBytes <= 300 * 1024)
+  size(`briefing page HTML, ${DEEP_LEVELS} levels`, kb(page.htmlBytes), '≤ 500 KB', page.htmlBytes <= 500 * 1024)
+  size('briefing page JS up front (gzip)', `${kb(page.gzipBytes)} in ${page.files} files (${kb(page.rawBytes)} raw)`, '', null)
+  if (bare) size('bare Nuxt page JS up front (gzip)', `${kb(bare.gzipBytes)} in ${bare.files} files`, '', null)
+  size('briefing page JS / bare Nuxt page', bare ? `${(page.gzipBytes / bare.gzipBytes).toFixed(2)}x` : 'no bare page', '≤ 1.5x', bare ? page.gzipBytes <= 1.5 * bare.gzipBytes : null)
+  console.log(`\n[bench:http] ${checks.filter(Boolean).length} of ${checks.length} targets met; session ${session.reqPerS.toFixed(0)} req/s; load average at the end ${loadavg().map(x => x.toFixed(2)).join(' ')}`)
+
+  mkdirSync(OUT_DIR, { recursive: true })
+  const file = `${OUT_DIR}/http-${new Date().toISOString().replace(/[:.]/g, '-')}.json`
+  writeFileSync(file, JSON.stringify({ rows, sizes: { jsonBytes, page, bare }, loadavg: loadavg() }, null, 2))
+  console.log(`[bench:http] figures kept in ${file}`)
+}
+
+await main()

@@ -1,0 +1,1 @@
+CREATE INDEX `profiles_status_valid_to` ON `profiles` (`status`,`valid_to`);

@@ -1,0 +1,274 @@
+/**
+ * Reading briefings at the cost of a session check: one query finds the airfield, the profile in force (or asked
+ * for), the reader's receipt and a stamp of everything the analysis depends on; the analysed, rounded and
+ * serialised briefing of that (profile, stamp) comes from the cache, or is computed once and kept.
+ * The home list reads every airfield's line in one query the same way.
+ */
+import { createHash } from 'node:crypto'
+import type { Airfield, Profile, RunwayEnd, ThresholdSet } from '../../db/schema'
+import { asc, inArray, schema, usePool, useDB } from '../../utils/db'
+import { analyseStored } from '../profiles/analysis'
+import { assembleBriefing, profileStatus, publicAirfield, rankRunwayEnds, STATUS_WORDS, type Briefing } from './briefing'
+import { evaluateLimits } from '../../../shared/limits'
+import { limitSetFromRows } from '../alerts/limits'
+import { VEERLINE_CAUTION } from '../../../shared/utils/caution'
+import { BoundedCache } from './analysis-cache'
+import { displayGridIndexes, displayLevelIndexes, roundFigures } from './precision'
+
+/** Changes whenever the engine, the magnetic model or the shape of the answer changes: part of every key. */
+const CODE_VERSION = 'engine-1;wmm2025;view-1'
+
+const CAUTION_JSON = JSON.stringify(VEERLINE_CAUTION)
+
+// Everything an analysis and its checks read, folded into one digest per airfield (NULLs spelled out so that a
+// value moving between columns still changes it). The profile's own levels never change once filed. The same
+// expressions serve one airfield (correlated) and all of them (grouped), so both give the same digest.
+const ENDS_SIG = `GROUP_CONCAT(CONCAT_WS(',', e.id, e.runway_id, e.designator, e.true_heading_deg) ORDER BY e.id SEPARATOR ';')`
+const LIMITS_SIG = `GROUP_CONCAT(CONCAT_WS(',', t.id, t.scope_key, t.updated_at, IFNULL(t.max_crosswind_kt, '~'),
+  IFNULL(t.max_tailwind_kt, '~'), IFNULL(t.max_layer_shear_kt_per_100ft, '~'), IFNULL(t.max_vector_diff_600m_kt, '~'),
+  IFNULL(t.max_airspeed_loss_kt, '~'), IFNULL(t.near_limit_margin_pct, '~')) ORDER BY t.id SEPARATOR ';')`
+const ORG_LIMITS_SQL = `(SELECT ${LIMITS_SIG} FROM threshold_sets t WHERE t.scope_key = 'org')`
+const stampSql = (endsSig: string, fieldLimitsSig: string) => `MD5(CONCAT_WS('|', a.id, a.code, a.name, a.updated_at,
+  a.latitude_deg, a.longitude_deg, a.elevation_m, IFNULL(a.mag_var_override_deg, '~'), IFNULL(a.mag_var_override_reason, '~'),
+  IFNULL(${endsSig}, '~'), IFNULL(${ORG_LIMITS_SQL}, '~'), IFNULL(${fieldLimitsSig}, '~')))`
+const STAMP_ONE_SQL = stampSql(`(SELECT ${ENDS_SIG} FROM runway_ends e WHERE e.airfield_id = a.id)`,
+  `(SELECT ${LIMITS_SIG} FROM threshold_sets t WHERE t.airfield_id = a.id)`)
+const ENDS_BY_AIRFIELD_SQL = `(SELECT e.airfield_id, ${ENDS_SIG} AS sig,
+  GROUP_CONCAT(e.designator ORDER BY e.designator SEPARATOR ',') AS designators FROM runway_ends e GROUP BY e.airfield_id)`
+const LIMITS_BY_AIRFIELD_SQL = `(SELECT t.airfield_id, ${LIMITS_SIG} AS sig FROM threshold_sets t
+  WHERE t.airfield_id IS NOT NULL GROUP BY t.airfield_id)`
+
+const PROFILE_COLUMNS = `p.id AS p_id, p.valid_from AS p_valid_from, p.valid_to AS p_valid_to, p.source AS p_source,
+  p.height_reference AS p_height_reference, p.status AS p_status, p.superseded_by_id AS p_superseded_by_id,
+  p.withdrawn_reason AS p_withdrawn_reason, p.notes AS p_notes, p.created_at AS p_created_at`
+
+// The profile a briefing is for: the newest active one valid at `at`, else the newest not withdrawn begun by `at`.
+const LATEST_BEGUN_SQL = `(SELECT q.id FROM profiles q WHERE q.airfield_id = a.id AND q.status <> 'withdrawn' AND q.valid_from <= ?
+    ORDER BY q.valid_from DESC, q.id DESC LIMIT 1)`
+const IN_FORCE_SQL = `COALESCE(
+  (SELECT q.id FROM profiles q WHERE q.airfield_id = a.id AND q.status = 'active' AND q.valid_from <= ? AND q.valid_to >= ?
+    ORDER BY q.valid_from DESC, q.id DESC LIMIT 1), ${LATEST_BEGUN_SQL})`
+// The same for every airfield at once: the valid ones through the (status, valid_to) index, the fallback only
+// where none is valid (COALESCE stops at the first value).
+const VALID_BY_AIRFIELD_SQL = `(SELECT w.id, w.airfield_id FROM (SELECT q.id, q.airfield_id,
+    ROW_NUMBER() OVER (PARTITION BY q.airfield_id ORDER BY q.valid_from DESC, q.id DESC) AS rn
+    FROM profiles q WHERE q.status = 'active' AND q.valid_to >= ? AND q.valid_from <= ?) w WHERE w.rn = 1)`
+
+// A raw mysql2 row: its columns are typed where they are read.
+// eslint-disable-next-line @typescript-eslint/no-explicit-any
+type Row = Record<string, any>
+
+function profileOf(r: Row, airfieldId: number) {
+  return {
+    id: r.p_id, airfieldId, validFrom: r.p_valid_from, validTo: r.p_valid_to, source: r.p_source,
+    heightReference: r.p_height_reference, status: r.p_status, supersededById: r.p_superseded_by_id,
+    withdrawnReason: r.p_withdrawn_reason, notes: r.p_notes, createdAt: r.p_created_at,
+  } as Pick<Profile, 'id' | 'airfieldId' | 'validFrom' | 'validTo' | 'source' | 'heightReference' | 'status'
+  | 'supersededById' | 'withdrawnReason' | 'notes' | 'createdAt'>
+}
+
+type ProfileHead = ReturnType<typeof profileOf>
+
+export type CachedBriefing = {
+  /** The briefing without its per-request fields (at, generatedAt, profile), serialised, `{` … `}`. */
+  restJson: string
+  exceededCount: number
+  bestEnd: string | null
+  bytes: number
+}
+
+export const briefingCache = new BoundedCache<CachedBriefing>()
+
+export type Precision = 'trade' | 'full'
+
+const keyOf = (profileId: number, stamp: string, precision: Precision) => `${profileId}|${stamp}|${precision}|${CODE_VERSION}`
+
+/** The figures a page shows: levels thinned for display, no figure twice, rounded to the trade's precision. */
+export function briefingView(full: Briefing, profileId: number) {
+  const keep = displayLevelIndexes(full.levels.map(l => l.heightAglM))
+  const pick = <T>(xs: T[]) => (keep.length === xs.length ? xs : keep.map(i => xs[i]!))
+  const shownSources = new Set(keep.map(i => full.levels[i]!.sourceIndex))
+  const keepGrid = displayGridIndexes(full.grid, shownSources)
+  const pickGrid = <T>(xs: T[]) => (keepGrid.length === xs.length ? xs : keepGrid.map(i => xs[i]!))
+  const { checks: _all, input, levels, grid, runwayEnds, ...rest } = full
+  return roundFigures({
+    ...rest,
+    input: { heightReference: input.heightReference, elevationM: input.elevationM, runwayEnds: input.runwayEnds,
+      levelCount: input.levels.length, levelsUrl: `/api/profiles/${profileId}` },
+    display: {
+      levelsShown: keep.length,
+      levelCount: levels.length,
+      note: keep.length === levels.length
+        ? null
+        : `${keep.length} of ${levels.length} levels shown (evenly spread, most of them in the lowest 600 m); every level is in the filed profile`,
+    },
+    levels: pick(levels),
+    grid: pickGrid(grid),
+    runwayEnds: runwayEnds.map(({ exceeded: _e, near: _n, ...end }) => ({ ...end, levels: pick(end.levels), byHeight: pickGrid(end.byHeight) })),
+  })
+}
+
+/** Analyses stored profiles of several airfields in a fixed number of queries and keeps each in the cache. */
+async function computeMany(items: { key: string, precision: Precision, profile: ProfileHead, airfield: Airfield }[]) {
+  if (!items.length) return new Map<string, CachedBriefing>()
+  const db = useDB()
+  const airfieldIds = [...new Set(items.map(i => i.airfield.id))]
+  const [endRows, levelRows, limitRows] = await Promise.all([
+    db.select().from(schema.runwayEnds).where(inArray(schema.runwayEnds.airfieldId, airfieldIds)),
+    db.select().from(schema.profileLevels).where(inArray(schema.profileLevels.profileId, [...new Set(items.map(i => i.profile.id))]))
+      .orderBy(asc(schema.profileLevels.profileId), asc(schema.profileLevels.seq)),
+    usePool().query(`SELECT * FROM threshold_sets WHERE scope_key = 'org' OR airfield_id IN (?)`, [airfieldIds])
+      .then(([rows]) => (rows as Row[]).map(thresholdRow)),
+  ])
+  const out = new Map<string, CachedBriefing>()
+  const now = new Date()
+  for (const item of items) {
+    const ends = endRows.filter(e => e.airfieldId === item.airfield.id)
+    const levels = levelRows.filter(l => l.profileId === item.profile.id)
+    const limitSet = limitSetFromRows(limitRows, item.airfield.id)
+    const stored = analyseStored(item.profile as Profile, item.airfield, ends, levels)
+    const full = assembleBriefing(stored, limitSet, now, now)
+    const checks = evaluateLimits(stored.analysis, limitSet.limits, limitSet.limitsFor)
+    const ranking = rankRunwayEnds(stored.analysis.runwayEnds, checks)
+    const { at: _a, generatedAt: _g, profile: _p, ...rest } = item.precision === 'full' ? full : briefingView(full, item.profile.id)
+    const restJson = JSON.stringify(rest)
+    const entry: CachedBriefing = {
+      restJson,
+      exceededCount: checks.filter(c => c.state === 'exceeded').length,
+      bestEnd: ranking[0]?.withinLimits ? ranking[0].designator : null,
+      bytes: restJson.length + 200,
+    }
+    briefingCache.set(item.key, entry)
+    out.set(item.key, entry)
+  }
+  return out
+}
+
+function thresholdRow(r: Row): ThresholdSet {
+  return {
+    id: r.id, scopeKey: r.scope_key, airfieldId: r.airfield_id, designator: r.designator,
+    maxCrosswindKt: r.max_crosswind_kt, maxTailwindKt: r.max_tailwind_kt, maxLayerShearKtPer100ft: r.max_layer_shear_kt_per_100ft,
+    maxVectorDiff600mKt: r.max_vector_diff_600m_kt, maxAirspeedLossKt: r.max_airspeed_loss_kt,
+    nearLimitMarginPct: r.near_limit_margin_pct, updatedByUserId: r.updated_by_user_id, updatedAt: r.updated_at,
+  }
+}
+
+function airfieldOf(r: Row): Airfield {
+  return {
+    id: r.a_id, code: r.a_code, name: r.a_name, latitudeDeg: r.a_latitude_deg, longitudeDeg: r.a_longitude_deg,
+    elevationM: r.a_elevation_m, elevationUnit: r.a_elevation_unit, magVarOverrideDeg: r.a_mag_var_override_deg,
+    magVarOverrideReason: r.a_mag_var_override_reason, notes: r.a_notes, createdAt: r.a_created_at, updatedAt: r.a_updated_at,
+  }
+}
+
+const AIRFIELD_COLUMNS = `a.id AS a_id, a.code AS a_code, a.name AS a_name, a.latitude_deg AS a_latitude_deg,
+  a.longitude_deg AS a_longitude_deg, a.elevation_m AS a_elevation_m, a.elevation_unit AS a_elevation_unit,
+  a.mag_var_override_deg AS a_mag_var_override_deg, a.mag_var_override_reason AS a_mag_var_override_reason,
+  a.notes AS a_notes, a.created_at AS a_created_at, a.updated_at AS a_updated_at`
+
+export function publicProfileOf(p: ProfileHead, now: Date) {
+  const status = profileStatus(p, now)
+  return {
+    id: p.id,
+    source: p.source,
+    validFrom: p.validFrom.toISOString(),
+    validTo: p.validTo.toISOString(),
+    filedAt: p.createdAt.toISOString(),
+    heightReference: p.heightReference,
+    ageMinutes: Math.round((now.getTime() - p.validFrom.getTime()) / 60_000),
+    status,
+    statusWords: STATUS_WORDS[status],
+    supersededById: p.supersededById,
+    withdrawnReason: p.withdrawnReason,
+    notes: p.notes,
+  }
+}
+
+export type BriefingView = ReturnType<typeof briefingView>
+
+/** The shape of the JSON text readBriefing answers (for the route's type: the text itself is spliced, not built). */
+type BriefingBody = BriefingView & { at: string, generatedAt: string, profile: ReturnType<typeof publicProfileOf> }
+type ReceiptBody = { id: number, profileId: number, readAt: string }
+export type BriefingAnswer
+  = | { briefing: BriefingBody, receipt: ReceiptBody | null, caution: string }
+    | { briefing: null, airfield: ReturnType<typeof publicAirfield>, at: string, message: string, caution: string, receipt: null }
+
+export type BriefingRead
+  = | { kind: 'no-airfield', code: string }
+    | { kind: 'no-such-profile', code: string, profileId: number }
+    | { kind: 'no-profile', body: string, etag: string }
+    | { kind: 'briefing', body: string, etag: string, profileId: number }
+
+const weakTag = (s: string) => `W/"${createHash('md5').update(s).digest('base64url')}"`
+
+/**
+ * The briefing answer of GET /api/airfields/{code}/briefing as JSON text with its ETag, for one reader.
+ * `at` defaults to now; `profileId` picks a version of this airfield.
+ */
+export async function readBriefing(code: string, userId: number, opts: { at?: Date, profileId?: number, precision?: Precision }): Promise<BriefingRead> {
+  const now = new Date()
+  const at = opts.at ?? now
+  const precision = opts.precision ?? 'trade'
+  const upper = code.toUpperCase()
+  const profileExpr = opts.profileId != null ? `(SELECT q.id FROM profiles q WHERE q.id = ? AND q.airfield_id = a.id)` : IN_FORCE_SQL
+  const profileArgs = opts.profileId != null ? [opts.profileId] : [at, at, at]
+  const [rows] = await usePool().query(
+    `SELECT ${AIRFIELD_COLUMNS}, ${PROFILE_COLUMNS}, r.id AS r_id, r.read_at AS r_read_at, ${STAMP_ONE_SQL} AS stamp
+     FROM airfields a
+     LEFT JOIN profiles p ON p.id = ${profileExpr}
+     LEFT JOIN briefing_receipts r ON r.user_id = ? AND r.profile_id = p.id
+     WHERE a.code = ?`,
+    [...profileArgs, userId, upper],
+  ) as [Row[], unknown]
+  const row = rows[0]
+  if (!row) return { kind: 'no-airfield', code: upper }
+  const airfield = airfieldOf(row)
+  if (row.p_id == null) {
+    if (opts.profileId != null) return { kind: 'no-such-profile', code: airfield.code, profileId: opts.profileId }
+    // Small and rare: built each time (the runway ends are read only here).
+    const ends = await useDB().select().from(schema.runwayEnds).where(inArray(schema.runwayEnds.airfieldId, [airfield.id])) as RunwayEnd[]
+    const body = JSON.stringify({ briefing: null, airfield: roundFigures(publicAirfield(airfield, ends)), at: at.toISOString(),
+      message: `No wind profile has been filed for ${airfield.code} at or before ${at.toISOString()}`, caution: VEERLINE_CAUTION, receipt: null })
+    return { kind: 'no-profile', body, etag: weakTag(`${row.stamp}|none|${opts.at ? at.toISOString() : ''}`) }
+  }
+  const profile = profileOf(row, airfield.id)
+  const key = keyOf(profile.id, row.stamp, precision)
+  const entry = briefingCache.get(key) ?? (await computeMany([{ key, precision, profile, airfield }])).get(key)!
+  const head = JSON.stringify({ at: at.toISOString(), generatedAt: now.toISOString(), profile: publicProfileOf(profile, now) })
+  const receipt = row.r_id == null ? null : { id: row.r_id, profileId: profile.id, readAt: (row.r_read_at as Date).toISOString() }
+  const receiptJson = JSON.stringify(receipt)
+  const body = `{"briefing":${head.slice(0, -1)},${entry.restJson.slice(1)},"caution":${CAUTION_JSON},"receipt":${receiptJson}}`
+  // Same profile version, same inputs, same status and receipt: the same briefing (the times in it aside).
+  const p = publicProfileOf(profile, now)
+  const etag = weakTag(`${key}|${p.status}|${p.supersededById}|${p.withdrawnReason}|${p.ageMinutes}|${receiptJson}|${opts.at ? at.toISOString() : ''}`)
+  return { kind: 'briefing', body, etag, profileId: profile.id }
+}
+
+/** One line per airfield for the home list: its profile in force now and what it crosses. A fixed number of queries. */
+export async function readBriefingSummaries() {
+  const now = new Date()
+  const [rows] = await usePool().query(
+    `SELECT ${AIRFIELD_COLUMNS}, ${PROFILE_COLUMNS}, ${stampSql('es.sig', 'ls.sig')} AS stamp, es.designators AS designators
+     FROM airfields a
+     LEFT JOIN ${ENDS_BY_AIRFIELD_SQL} es ON es.airfield_id = a.id
+     LEFT JOIN ${LIMITS_BY_AIRFIELD_SQL} ls ON ls.airfield_id = a.id
+     LEFT JOIN ${VALID_BY_AIRFIELD_SQL} v ON v.airfield_id = a.id
+     LEFT JOIN profiles p ON p.id = COALESCE(v.id, ${LATEST_BEGUN_SQL})
+     ORDER BY a.code`,
+    [now, now, now],
+  ) as [Row[], unknown]
+  const items = rows.map((r) => {
+    const airfield = airfieldOf(r)
+    const profile = r.p_id == null ? null : profileOf(r, airfield.id)
+    const key = profile ? keyOf(profile.id, r.stamp, 'trade') : ''
+    return { r, airfield, profile, key, entry: profile ? briefingCache.get(key) : undefined }
+  })
+  const missing = items.filter(i => i.profile && !i.entry)
+  const computed = await computeMany(missing.map(i => ({ key: i.key, precision: 'trade' as const, profile: i.profile!, airfield: i.airfield })))
+  return items.map(({ r, airfield, profile, key, entry }) => {
+    const runwayEnds = r.designators ? String(r.designators).split(',') : []
+    if (!profile) return { code: airfield.code, name: airfield.name, runwayEnds, profile: null, exceededCount: 0, bestEnd: null }
+    const e = entry ?? computed.get(key)!
+    return { code: airfield.code, name: airfield.name, runwayEnds, profile: publicProfileOf(profile, now), exceededCount: e.exceededCount, bestEnd: e.bestEnd }
+  })
+}

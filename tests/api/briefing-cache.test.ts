@@ -1,0 +1,181 @@
+// Briefings from the analysis cache: trade precision at the boundary, thinned display levels, ETag/304, and never
+// a stale briefing after an edit made on another instance.
+import { spawn, type ChildProcess } from 'node:child_process'
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { ApiClient, signedIn } from '../support/api'
+import { closeDb, makeAirfield, profileBody } from '../support/airfields'
+
+afterAll(closeDb)
+
+/** Every number in a field named by its unit, with the decimals it may carry at trade precision. */
+function decimalsOf(x: number) {
+  const s = String(x)
+  return s.includes('e') ? 99 : (s.split('.')[1] ?? '').length
+}
+function collect(v: unknown, key: string, out: { key: string, value: number }[] = []) {
+  if (typeof v === 'number') out.push({ key, value: v })
+  else if (Array.isArray(v)) v.forEach(x => collect(x, key, out))
+  else if (v && typeof v === 'object') for (const [k, x] of Object.entries(v)) collect(x, k, out)
+  return out
+}
+
+describe('briefing answer at trade precision', () => {
+  it('rounds wind to 0.1 kt, heights to 0.1 m and shear to 0.01 kt/100 ft, and agrees with the full answer', async () => {
+    const pilot = await signedIn('pilot')
+    const trade = (await pilot.get('/api/airfields/XCST/briefing')).body.briefing
+    const full = (await pilot.get('/api/airfields/XCST/briefing?precision=full')).body.briefing
+    expect(trade.profile.id).toBe(full.profile.id)
+    // The steps are the ones named in server/domain/briefings/precision.ts (common practice: one decimal more than
+    // reports carry, METAR wind in whole knots and heights in whole feet, WMO Manual on Codes FM 15).
+    for (const { key, value } of collect(trade, '')) {
+      if (/KtPer100ft$|MpsPer30m$/.test(key)) expect(decimalsOf(value), key).toBeLessThanOrEqual(2)
+      else if (/(Kt|Mps|AglM|baseM|topM)$/.test(key)) expect(decimalsOf(value), key).toBeLessThanOrEqual(1)
+    }
+    for (const [i, end] of full.runwayEnds.entries()) {
+      const t = trade.runwayEnds[i]
+      expect(t.designator).toBe(end.designator)
+      expect(t.surface.headwindKt).toBeCloseTo(end.surface.headwindKt, 1)
+      expect(Math.abs(t.surface.headwindKt - end.surface.headwindKt)).toBeLessThanOrEqual(0.05 + 1e-9)
+      expect(Math.abs(t.surface.crosswindKt - end.surface.crosswindKt)).toBeLessThanOrEqual(0.05 + 1e-9)
+    }
+    expect(Math.abs(trade.shear.strongestLayer.shearKtPer100ft - full.shear.strongestLayer.shearKtPer100ft)).toBeLessThanOrEqual(0.005 + 1e-9)
+    // The few demo levels are all shown; the filed levels themselves are one link away, not repeated.
+    expect(trade.levels).toHaveLength(full.levels.length)
+    expect(trade.display).toMatchObject({ levelsShown: full.levels.length, levelCount: full.levels.length, note: null })
+    expect(trade.input.levels).toBeUndefined()
+    expect(trade.input.levelsUrl).toBe(`/api/profiles/${full.profile.id}`)
+    expect(trade.caution).toContain('Advisory only')
+  })
+
+  it('shows at most 120 of 5,000 filed levels, the lowest and highest among them, in under 300 KB', async () => {
+    const dispatcher = await signedIn('dispatcher')
+    const { code } = await makeAirfield(dispatcher)
+    const levels = Array.from({ length: 5000 }, (_, i) => ({ heightM: 10 + i * 2, directionDeg: 200 + (i % 50), speedKt: 10 + (i % 30) }))
+    const filed = await dispatcher.post(`/api/airfields/${code}/profiles`, profileBody(0, 3, { levels }))
+    expect(filed.status).toBe(201)
+    const res = await dispatcher.get(`/api/airfields/${code}/briefing`)
+    expect(res.status).toBe(200)
+    const b = res.body.briefing
+    expect(b.display.levelCount).toBe(5000)
+    expect(b.levels.length).toBeLessThanOrEqual(120)
+    expect(b.levels[0].heightAglM).toBe(10)
+    expect(b.levels.at(-1).heightAglM).toBe(10 + 4999 * 2)
+    expect(b.runwayEnds[0].levels).toHaveLength(b.levels.length)
+    // The grid keeps its 30 m steps (0 to 600 m: 21) and the shown levels; each end's components follow it.
+    expect(b.grid.length).toBeLessThanOrEqual(21 + b.levels.length + 2)
+    expect(b.grid.filter((g: { heightAglM: number }) => g.heightAglM % 30 === 0).length).toBe(20) // 30 … 600 m (the lowest level is at 10 m)
+    expect(b.runwayEnds[0].byHeight).toHaveLength(b.grid.length)
+    expect(b.display.note).toContain('of 5000 levels shown')
+    expect(JSON.stringify(res.body).length).toBeLessThan(300 * 1024)
+  })
+})
+
+describe('ETag on briefings', () => {
+  it('answers 304 to the same reader while nothing changed, and a new tag once they mark it read', async () => {
+    const dispatcher = await signedIn('dispatcher')
+    const pilot = await signedIn('pilot')
+    const { code } = await makeAirfield(dispatcher)
+    expect((await dispatcher.post(`/api/airfields/${code}/profiles`, profileBody(0, 3))).status).toBe(201)
+    const first = await pilot.get(`/api/airfields/${code}/briefing`)
+    const tag = first.headers.get('etag')
+    expect(tag).toMatch(/^W\/".+"$/)
+    const again = await pilot.get(`/api/airfields/${code}/briefing`, { 'if-none-match': tag! })
+    expect(again.status).toBe(304)
+    expect(again.body).toBeNull()
+    expect((await pilot.post('/api/receipts', { profileId: first.body.briefing.profile.id })).status).toBe(201)
+    const read = await pilot.get(`/api/airfields/${code}/briefing`, { 'if-none-match': tag! })
+    expect(read.status).toBe(200)
+    expect(read.body.receipt.profileId).toBe(first.body.briefing.profile.id)
+    expect(read.headers.get('etag')).not.toBe(tag)
+  })
+})
+
+describe('the cache never serves a stale briefing after an edit on another instance', () => {
+  let second: ChildProcess
+  let viaSecond: ApiClient
+  const port2 = process.env.VEERLINE_PORT_2
+  beforeAll(async () => {
+    expect(port2, 'VEERLINE_PORT_2 is set by scripts/test.sh').toBeTruthy()
+    second = spawn(process.execPath, ['.output/server/index.mjs'], {
+      env: { ...process.env, PORT: port2, NITRO_PORT: port2, HOST: '127.0.0.1', NITRO_HOST: '127.0.0.1', VEERLINE_OUTBOX_WORKER: '0' },
+      stdio: 'ignore',
+    })
+    for (let i = 0; i < 100; i++) {
+      try {
+        if ((await fetch(`http://127.0.0.1:${port2}/healthz`)).ok) break
+      }
+      catch { /* not up yet */ }
+      await new Promise(r => setTimeout(r, 200))
+    }
+    viaSecond = new ApiClient(`http://127.0.0.1:${port2}`)
+    await viaSecond.signIn('admin@veerline.example')
+  })
+  afterAll(async () => {
+    second.kill('SIGTERM')
+    await new Promise(r => second.exitCode != null ? r(null) : second.once('exit', r))
+  })
+
+  async function fieldWithProfile() {
+    const dispatcher = await signedIn('dispatcher')
+    const { code, airfield } = await makeAirfield(dispatcher)
+    const filed = await dispatcher.post(`/api/airfields/${code}/profiles`, profileBody(0, 3))
+    expect(filed.status).toBe(201)
+    return { code, airfield, profileId: filed.body.profile.id as number, pilot: await signedIn('pilot') }
+  }
+  const end = (b: any, d: string) => b.runwayEnds.find((e: { designator: string }) => e.designator === d)
+
+  it('a runway heading edited on the second instance shows in the next briefing on the first', async () => {
+    const { code, pilot } = await fieldWithProfile()
+    const before = (await pilot.get(`/api/airfields/${code}/briefing`)).body.briefing
+    expect(end(before, '18').trueHeadingDeg).toBe(180)
+    const detail = await viaSecond.get(`/api/airfields/${code}`)
+    const runwayId = detail.body.airfield.runways[0].id
+    const edit = await viaSecond.patch(`/api/airfields/${code}/runways/${runwayId}`, {
+      lengthM: 2400, ends: [{ designator: '18', trueHeadingDeg: 175 }, { designator: '36', trueHeadingDeg: 355 }],
+    })
+    expect(edit.status).toBe(200)
+    const after = (await pilot.get(`/api/airfields/${code}/briefing`)).body.briefing
+    expect(end(after, '18').trueHeadingDeg).toBe(175)
+    // Surface wind 200° at 12 kt on a heading of 175°: headwind = 12·cos 25° (trade formula, as in briefing.test.ts).
+    expect(end(after, '18').surface.headwindKt).toBeCloseTo(12 * Math.cos(25 * Math.PI / 180), 1)
+  })
+
+  it('a limit changed on the second instance shows in the next briefing on the first', async () => {
+    const { code, pilot } = await fieldWithProfile()
+    const before = (await pilot.get(`/api/airfields/${code}/briefing`)).body.briefing
+    expect(before.limits.values.maxCrosswindKt).not.toBe(7)
+    const change = await viaSecond.put(`/api/thresholds/airfields/${code}`, { values: { maxCrosswindKt: 7 }, reason: 'Cache test: a tight crosswind limit' })
+    expect(change.status).toBeLessThan(300)
+    const after = (await pilot.get(`/api/airfields/${code}/briefing`)).body.briefing
+    expect(after.limits.values.maxCrosswindKt).toBe(7)
+    expect(after.limits.source.maxCrosswindKt).toBe('airfield')
+  })
+
+  it('a profile superseded on the second instance gives way to the new one on the first', async () => {
+    const { code, profileId, pilot } = await fieldWithProfile()
+    expect((await pilot.get(`/api/airfields/${code}/briefing`)).body.briefing.profile.id).toBe(profileId)
+    const old = await pilot.get(`/api/airfields/${code}/briefing?profile=${profileId}`)
+    expect(old.body.briefing.profile.status).toBe('current')
+    const newer = await viaSecond.post(`/api/airfields/${code}/profiles`, profileBody(0, 3, { source: 'aircraft-reports' }))
+    expect(newer.status).toBe(201)
+    const now = (await pilot.get(`/api/airfields/${code}/briefing`)).body.briefing
+    expect(now.profile.id).toBe(newer.body.profile.id)
+    const was = await pilot.get(`/api/airfields/${code}/briefing?profile=${profileId}`, { 'if-none-match': old.headers.get('etag')! })
+    expect(was.status).toBe(200)
+    expect(was.body.briefing.profile.status).toBe('superseded')
+    expect(was.body.briefing.profile.supersededById).toBe(newer.body.profile.id)
+  })
+
+  it('a profile withdrawn on the second instance is no longer briefed on the first', async () => {
+    const { code, profileId, pilot } = await fieldWithProfile()
+    expect((await pilot.get(`/api/airfields/${code}/briefing`)).body.briefing.profile.id).toBe(profileId)
+    const w = await viaSecond.post(`/api/profiles/${profileId}/withdraw`, { reason: 'Cache test: sensor fault' })
+    expect(w.status).toBe(200)
+    const now = await pilot.get(`/api/airfields/${code}/briefing`)
+    expect(now.status).toBe(200)
+    expect(now.body.briefing).toBeNull()
+    const asked = (await pilot.get(`/api/airfields/${code}/briefing?profile=${profileId}`)).body.briefing
+    expect(asked.profile.status).toBe('withdrawn')
+    expect(asked.profile.withdrawnReason).toBe('Cache test: sensor fault')
+  })
+})
