@@ -2,7 +2,8 @@
 // serialised return type), so a change on the server reaches every screen through the type checker.
 import type { InternalApi } from 'nitropack/types'
 
-type BriefingAnswer = InternalApi['/api/airfields/:code/briefing']['get']
+// NonNullable: the route may also answer 304 with no body (ETag), which the pages never read as data.
+type BriefingAnswer = NonNullable<InternalApi['/api/airfields/:code/briefing']['get']>
 
 /** One briefing (the `briefing` of GET /api/airfields/{code}/briefing when a profile applies). */
 export type BriefingView = NonNullable<BriefingAnswer['briefing']>
@@ -11,7 +12,7 @@ export type LevelPoint = BriefingView['levels'][number]
 export type EndLevel = RunwayEndView['levels'][number]
 export type GridPoint = BriefingView['grid'][number]
 export type FeetStep = BriefingView['feetSteps'][number]
-export type LimitCheckView = BriefingView['checks'][number]
+export type LimitCheckView = RunwayEndView['checks'][number]
 export type PathChangeView = NonNullable<RunwayEndView['arrival']>
 export type ConvectiveView = BriefingView['convective']
 export type ShearView = BriefingView['shear']
