@@ -1,14 +1,8 @@
-import type { RoleName } from '#shared/utils/roles'
-
-// Signed-out visitors go to sign-in; pages may list the roles they admit in definePageMeta({ roles }).
+// Signed-out visitors go to sign-in (with the way back); a page that needs a capability says so in
+// definePageMeta({ can: '…' }), and a role without it goes to its own home page (shared/utils/capabilities.ts).
 export default defineNuxtRouteMiddleware((to) => {
   const { loggedIn, user } = useUserSession()
   if (to.meta.public) return
-  if (!loggedIn.value) {
-    return navigateTo({ path: '/sign-in', query: to.fullPath !== '/' ? { next: to.fullPath } : {} })
-  }
-  const roles = to.meta.roles as RoleName[] | undefined
-  if (roles && user.value && !roles.includes(user.value.role)) {
-    return navigateTo(ROLE_HOME[user.value.role])
-  }
+  if (!loggedIn.value || !user.value) return navigateTo(signInPathFor(to.fullPath))
+  if (to.meta.can && !can(user.value, to.meta.can)) return navigateTo(ROLE_HOME[user.value.role])
 })

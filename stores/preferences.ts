@@ -2,6 +2,8 @@ import { defineStore } from 'pinia'
 
 // The signed-in reader's display units, kept in the database (GET/PUT /api/preferences).
 export const usePreferencesStore = defineStore('preferences', () => {
+  // Taken when the store is first used (inside a component or plugin), so each server render uses its own visitor's.
+  const { $api } = useNuxtApp()
   const speedUnit = ref<SpeedUnit>(DEFAULT_PREFERENCES.speedUnit)
   const heightUnit = ref<HeightUnit>(DEFAULT_PREFERENCES.heightUnit)
   const headingRef = ref<HeadingRef>(DEFAULT_PREFERENCES.headingRef)
@@ -16,8 +18,7 @@ export const usePreferencesStore = defineStore('preferences', () => {
 
   async function load() {
     if (loaded.value) return true
-    const fetcher = useRequestFetch()
-    const res = await fetcher<{ preferences: DisplayPreferences }>('/api/preferences')
+    const res = await $api('/api/preferences')
     apply(res.preferences)
     loaded.value = true
     return true
@@ -26,12 +27,11 @@ export const usePreferencesStore = defineStore('preferences', () => {
   async function save(change: Partial<DisplayPreferences>) {
     error.value = null
     try {
-      const res = await $fetch<{ preferences: DisplayPreferences }>('/api/preferences', { method: 'PUT', body: change })
+      const res = await $api('/api/preferences', { method: 'PUT', body: change })
       apply(res.preferences)
     }
-    catch (e) {
-      const err = e as { data?: { statusMessage?: string }, message?: string }
-      error.value = err.data?.statusMessage ?? err.message ?? 'The preferences could not be saved'
+    catch (err) {
+      error.value = fetchFailure(err, 'The preferences could not be saved').message
     }
   }
 

@@ -1,43 +1,25 @@
-// Client-side shapes of the briefing answer (GET /api/airfields/{code}/briefing), just what the screens read.
-export type Side = 'left' | 'right' | 'none'
-export type Components = { headwindKt: number, crosswindKt: number, crosswindSide: Side }
-export type LevelPoint = { heightAglM: number, directionDeg: number, speedKt: number, sourceIndex: number, gustKt?: number }
-export type EndLevel = Components & { heightAglM: number, sourceIndex: number }
-export type WindVector = { uKt: number, vKt: number, speedKt: number, directionDeg: number }
-export type LimitCheckView = {
-  kind: string
-  designator: string | null
-  value: number
-  limit: number
-  unit: string
-  excess: number
-  state: 'exceeded' | 'near' | 'within'
-  message: string
-}
-export type PathChangeView = {
-  maxAirspeedLossKt: number
-  maxAirspeedGainKt: number
-  lossFromHeightM: number | null
-  lossToHeightM: number | null
-  gainFromHeightM: number | null
-  gainToHeightM: number | null
-  exceedsAlertingPractice15Kt: boolean
-  complete: boolean
-}
-export type ConvectiveView = { available: false, reason: string } | {
-  available: true
-  meanWind0to6kmKt: WindVector
-  bulkShear0to6kmKt: number
-  bunkersRight: WindVector
-  bunkersLeft: WindVector
-  srh0to1kmM2s2: number
-  srh0to3kmM2s2: number
-  streamwiseShare0to500m: number
-}
-export type FeetStep = {
-  heightAglFt: number
-  heightAglM: number
-  directionDeg: number
-  speedKt: number
-  components: { designator: string, headwindKt: number, crosswindKt: number }[]
-}
+// The briefing's shapes on the client, derived from what the route returns (Nitro's InternalApi holds each route's
+// serialised return type), so a change on the server reaches every screen through the type checker.
+import type { InternalApi } from 'nitropack/types'
+
+// NonNullable: the route may also answer 304 with no body (ETag), which the pages never read as data.
+type BriefingAnswer = NonNullable<InternalApi['/api/airfields/:code/briefing']['get']>
+
+/** One briefing (the `briefing` of GET /api/airfields/{code}/briefing when a profile applies). */
+export type BriefingView = NonNullable<BriefingAnswer['briefing']>
+export type RunwayEndView = BriefingView['runwayEnds'][number]
+export type LevelPoint = BriefingView['levels'][number]
+export type EndLevel = RunwayEndView['levels'][number]
+export type GridPoint = BriefingView['grid'][number]
+export type FeetStep = BriefingView['feetSteps'][number]
+export type LimitCheckView = RunwayEndView['checks'][number]
+export type PathChangeView = NonNullable<RunwayEndView['arrival']>
+export type ConvectiveView = BriefingView['convective']
+export type ShearView = BriefingView['shear']
+
+/** The day's trend at an airfield (GET /api/airfields/{code}/trend). */
+export type TrendView = InternalApi['/api/airfields/:code/trend']['get']
+
+/** The engine's answer for levels being entered (POST /api/wind/preview), nothing saved. */
+export type WindPreviewView = InternalApi['/api/wind/preview']['post']
+export type PreviewAnalysis = WindPreviewView['analysis']

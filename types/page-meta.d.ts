@@ -1,9 +1,9 @@
-import type { RoleName } from '#shared/utils/roles'
+import type { Capability } from '#shared/utils/capabilities'
 
 declare module '#app' {
   interface PageMeta {
-    /** Roles that may open the page; others are sent to their home page. */
-    roles?: RoleName[]
+    /** What the page needs (shared/utils/capabilities.ts); a role without it is sent to its home page. */
+    can?: Capability
     /** Open to signed-out visitors (sign-in, invitations). */
     public?: boolean
     /** The page shows weather: the caution is shown under it. */

@@ -1,8 +1,4 @@
-// The message a person can act on, from a failed $fetch: the server's statusMessage and its field issues.
-export function fetchFailure(err: unknown, fallback: string): { message: string, issues: { field: string, message: string, line?: number, index?: number }[] } {
-  const e = err as { data?: { statusMessage?: string, data?: { issues?: { field: string, message: string, line?: number, index?: number }[] } }, statusMessage?: string }
-  return { message: e.data?.statusMessage || e.statusMessage || fallback, issues: e.data?.data?.issues ?? [] }
-}
+// Putting a refused form's issues beside its fields. Reading a failed call is `fetchFailure` (utils/api-error.ts).
 
 /** A server issue's field (`ends.1.designator` or `ends[1].designator`) as the form path vee-validate uses. */
 export function formPath(field: string): string {

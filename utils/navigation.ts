@@ -1,21 +1,23 @@
-import type { RoleName } from '#shared/utils/roles'
+import type { Capability } from '#shared/utils/capabilities'
 
-export type NavItem = { to: string, label: string, roles: RoleName[] }
+/** A navigation item; `can` names what a user needs to see it (none: every signed-in user). */
+export type NavItem = { to: string, label: string, can?: Capability }
 
-// The navigation, per role: a role sees only what it may use.
+// The navigation: a user sees only what their role may use (the one capability map decides).
 export const NAV_ITEMS: NavItem[] = [
-  { to: '/briefings', label: 'Briefings', roles: ['admin', 'dispatcher', 'pilot', 'safety'] },
-  { to: '/airfields', label: 'Airfields', roles: ['admin', 'dispatcher', 'pilot', 'safety'] },
-  { to: '/safety', label: 'Limits', roles: ['admin', 'safety'] },
-  { to: '/alerts/log', label: 'Alert log', roles: ['admin', 'safety'] },
-  { to: '/audit', label: 'Audit', roles: ['admin', 'safety'] },
-  { to: '/tokens', label: 'Tokens', roles: ['dispatcher', 'admin'] },
-  { to: '/admin/users', label: 'Users', roles: ['admin'] },
+  { to: '/briefings', label: 'Briefings', can: 'read-briefings' },
+  { to: '/airfields', label: 'Airfields', can: 'read-briefings' },
+  { to: '/safety', label: 'Limits', can: 'manage-limits' },
+  { to: '/alerts/log', label: 'Alert log', can: 'read-alert-log' },
+  { to: '/audit', label: 'Audit', can: 'read-audit' },
+  { to: '/tokens', label: 'Tokens', can: 'manage-tokens' },
+  { to: '/admin/users', label: 'Users', can: 'manage-users' },
   // Local stand-ins for the hosted mail and push services (development and demo).
-  { to: '/mailbox', label: 'Mailbox', roles: ['admin'] },
-  { to: '/device', label: 'Device', roles: ['admin', 'dispatcher', 'pilot', 'safety'] },
+  { to: '/mailbox', label: 'Mailbox', can: 'read-mailbox' },
+  { to: '/device', label: 'Device' },
 ]
 
-export function navFor(role: RoleName | undefined): NavItem[] {
-  return role ? NAV_ITEMS.filter(i => i.roles.includes(role)) : []
+export function navFor(user: Parameters<typeof can>[0]): NavItem[] {
+  if (!user) return []
+  return NAV_ITEMS.filter(i => !i.can || can(user, i.can))
 }

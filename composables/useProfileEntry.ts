@@ -1,0 +1,132 @@
+import { toTypedSchema } from '@vee-validate/zod'
+import { useFieldArray, useForm } from 'vee-validate'
+import { profileInputSchema } from '#shared/utils/profile-schema'
+import { M_PER_FT } from '#shared/units'
+
+export type HeightKey = 'heightM' | 'heightFt' | 'pressureHpa'
+export type SpeedKey = 'speedKt' | 'speedMps'
+type LevelDraft = Record<string, number | undefined>
+
+const HEIGHT_LABEL: Record<HeightKey, string> = { heightM: 'm', heightFt: 'ft', pressureHpa: 'hPa' }
+const gustKeyOf = (speed: SpeedKey) => (speed === 'speedKt' ? 'gustKt' : 'gustMps')
+
+/** A level typed in one pair of units, carried over to another pair with its figures as typed. */
+export function rekeyLevel(level: LevelDraft, from: { height: HeightKey, speed: SpeedKey }, to: { height: HeightKey, speed: SpeedKey }): LevelDraft {
+  const out: LevelDraft = { directionDeg: level.directionDeg }
+  out[to.height] = level[from.height]
+  out[to.speed] = level[from.speed]
+  const gust = level[gustKeyOf(from.speed)]
+  if (gust !== undefined) out[gustKeyOf(to.speed)] = gust
+  return out
+}
+
+/** Levels from the lowest up: heights ascending, pressures descending (pressure falls with height); blanks last. */
+export function sortedLevels(levels: LevelDraft[], height: HeightKey): LevelDraft[] {
+  const sign = height === 'pressureHpa' ? -1 : 1
+  const key = (l: LevelDraft) => l[height] ?? Number.NaN
+  return [...levels].sort((a, b) => {
+    const x = key(a)
+    const y = key(b)
+    if (Number.isNaN(x) || Number.isNaN(y)) return Number.isNaN(x) ? (Number.isNaN(y) ? 0 : 1) : -1
+    return sign * (x - y)
+  })
+}
+
+/** Levels read from coded reports (heights in m or ft, speeds in kt) as table rows in m and kt. */
+export function levelsFromCoded(levels: Record<string, number>[]): LevelDraft[] {
+  return levels.map(l => ({
+    heightM: l.heightM ?? Math.round((l.heightFt ?? 0) * M_PER_FT * 10) / 10,
+    directionDeg: l.directionDeg,
+    speedKt: l.speedKt,
+    ...(l.gustKt === undefined ? {} : { gustKt: l.gustKt }),
+  }))
+}
+
+/**
+ * The profile entry of an airfield: the form (the API's own schema), the level table in the units the dispatcher
+ * picks, levels from coded reports, the live preview and filing. `now` fixes the default validity (this hour + 3 h).
+ */
+export function useProfileEntry(code: string, options: { now?: number, previewDebounceMs?: number } = {}) {
+  const { $api } = useNuxtApp()
+  const hour = Math.floor((options.now ?? Date.now()) / 3600_000) * 3600_000
+  const iso = (ms: number) => new Date(ms).toISOString().replace('.000', '')
+  const form = useForm({
+    validationSchema: toTypedSchema(profileInputSchema),
+    initialValues: {
+      validFrom: iso(hour),
+      validTo: iso(hour + 3 * 3600_000),
+      source: 'wind-profiler' as const,
+      heightReference: 'AGL' as const,
+    },
+  })
+  type FormPath = Parameters<typeof form.setFieldError>[0]
+  const { fields, push, remove, replace } = useFieldArray<LevelDraft>('levels')
+  // Two levels to start with, blank cells until typed: the schema's "is required" messages name them.
+  replace([{ heightM: 10 }, { heightM: 300 }])
+  const [source] = form.defineField('source')
+  const [heightReference] = form.defineField('heightReference')
+  const [notes] = form.defineField('notes')
+  const [validFrom] = form.defineField('validFrom')
+  const [validTo] = form.defineField('validTo')
+  function setTime(field: 'validFrom' | 'validTo', typed: string) {
+    // Anything that is not a UTC time is passed on as typed, so the shared schema's message says what is wrong.
+    form.setFieldValue(field, parseUtcText(typed) ?? typed.trim())
+  }
+
+  const units = reactive<{ height: HeightKey, speed: SpeedKey }>({ height: 'heightM', speed: 'speedKt' })
+  const gustKey = computed(() => gustKeyOf(units.speed))
+  const unitLabels = computed(() => ({ height: HEIGHT_LABEL[units.height], speed: units.speed === 'speedKt' ? 'kt' : 'm/s' }))
+  const entry = ref<'table' | 'coded'>('table')
+  watch(() => ({ ...units }), (now, before) => replace(fields.value.map(f => rekeyLevel(f.value, before, now))))
+
+  function sortLevels() {
+    const rows = fields.value.map(f => f.value)
+    const sorted = sortedLevels(rows, units.height)
+    if (sorted.some((r, i) => r !== rows[i])) replace(sorted)
+  }
+  function addLevel() {
+    push({ [units.height]: undefined, directionDeg: undefined, [units.speed]: undefined })
+  }
+  async function fromCoded(levels: Record<string, number>[]) {
+    units.height = 'heightM'
+    units.speed = 'speedKt'
+    // Let the unit change re-key the old rows first, then put the coded levels in their place.
+    await nextTick()
+    replace(levelsFromCoded(levels))
+    entry.value = 'coded'
+  }
+
+  const preview = useProfilePreview(code, () => ({ heightReference: form.values.heightReference, levels: form.values.levels as LevelDraft[] | undefined }), { debounceMs: options.previewDebounceMs })
+
+  const failure = ref('')
+  const failureIssues = ref<{ field: string, message: string }[]>([])
+  const submit = form.handleSubmit(async (body) => {
+    failure.value = ''
+    failureIssues.value = []
+    try {
+      await $api(`/api/airfields/${code}/profiles`, { method: 'POST', query: { entry: entry.value }, body })
+      await navigateTo(`/airfields/${code}`)
+    }
+    catch (err) {
+      const f = fetchFailure(err, 'The profile was not filed')
+      failure.value = f.message
+      // Issues land beside their cells (`levels[1].directionDeg`); the rest are listed under the message.
+      const known = new Set([...fields.value.flatMap((row, i) => Object.keys(row.value).map(k => `levels[${i}].${k}`)), 'validFrom', 'validTo', 'source', 'heightReference', 'notes', 'levels'])
+      const isFormPath = (path: string): path is FormPath => known.has(path)
+      failureIssues.value = f.issues.filter((issue) => {
+        const path = formPath(issue.field)
+        if (!isFormPath(path)) return true
+        form.setFieldError(path, issue.message)
+        return false
+      })
+    }
+  })
+  const header = computed(() => ({ validFrom: form.values.validFrom, validTo: form.values.validTo, source: form.values.source, heightReference: form.values.heightReference, notes: form.values.notes }))
+
+  return {
+    errors: form.errors, values: form.values, isSubmitting: form.isSubmitting,
+    fields, remove, source, heightReference, notes, validFrom, validTo, setTime,
+    units, gustKey, unitLabels, entry, sortLevels, addLevel, fromCoded,
+    preview, submit, failure, failureIssues, header,
+  }
+}
