@@ -1,4 +1,5 @@
-import type { ZodError, ZodIssue } from 'zod'
+import type { z, ZodError, ZodIssue, ZodTypeAny } from 'zod'
+import type { H3Event } from 'h3'
 
 /** One refused field: `field` is a path spelled `levels[1].directionDeg`; `line` and `index` place it in a file or list. */
 export type FieldIssue = { field: string, message: string, line?: number, index?: number }
@@ -79,4 +80,14 @@ export function validationError(error: ZodError, statusMessage = 'Some fields ne
     statusMessage: invalidMessage(issues, statusMessage),
     data: { issues },
   })
+}
+
+/**
+ * The route's path params checked by `schema`. A refused param is a 422 of the one contract (never h3's 400 with a
+ * raw dump, which `getValidatedRouterParams(event, schema.parse)` gives).
+ */
+export function readParams<S extends ZodTypeAny>(event: H3Event, schema: S, statusMessage = 'The address is not valid'): z.infer<S> {
+  const parsed = schema.safeParse(getRouterParams(event, { decode: true }))
+  if (!parsed.success) throw validationError(parsed.error, statusMessage)
+  return parsed.data
 }

@@ -4,7 +4,7 @@ import { airfieldByCode } from '../../domain/profiles/analysis'
 
 export default defineEventHandler(async (event) => {
   await requireUser(event)
-  const { code } = await getValidatedRouterParams(event, airfieldCodeParamSchema.parse)
+  const { code } = readParams(event, airfieldCodeParamSchema)
   const airfield = await airfieldByCode(code)
   if (!airfield) throw createError({ statusCode: 404, statusMessage: `No airfield with the code ${code}` })
   return { airfield: { ...(await airfieldDetail(airfield)), profileState: await profileStateOf(airfield.id) } }

@@ -3,7 +3,7 @@ import { airfieldDetail } from '../../domain/airfields'
 
 export default defineEventHandler(async (event) => {
   const user = await requireRole(event, 'dispatcher', 'admin')
-  const { code } = await getValidatedRouterParams(event, airfieldCodeParamSchema.parse)
+  const { code } = readParams(event, airfieldCodeParamSchema)
   const body = await readValidatedBody(event, airfieldUpdateSchema.safeParse)
   if (!body.success) throw validationError(body.error)
   const { elevation, ...rest } = body.data

@@ -4,7 +4,7 @@ import { publicProfile } from '../../domain/profiles/filing'
 // One profile as filed, with its history links (what it superseded, what superseded it).
 export default defineEventHandler(async (event) => {
   await requireUser(event)
-  const { id } = await getValidatedRouterParams(event, idParamSchema.parse)
+  const { id } = readParams(event, idParamSchema)
   const p = schema.profiles
   const [row] = await useDB().select({ profile: p, code: schema.airfields.code }).from(p)
     .innerJoin(schema.airfields, eq(schema.airfields.id, p.airfieldId)).where(eq(p.id, id))

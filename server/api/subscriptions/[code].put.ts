@@ -10,7 +10,7 @@ const bodySchema = z.object({
 // Follows an airfield (or changes the channels). The in-app inbox always receives its alerts.
 export default defineEventHandler(async (event) => {
   const user = await requireUser(event)
-  const { code } = await getValidatedRouterParams(event, airfieldCodeParamSchema.parse)
+  const { code } = readParams(event, airfieldCodeParamSchema)
   const body = await readValidatedBody(event, bodySchema.safeParse)
   if (!body.success) throw validationError(body.error)
   const airfield = await airfieldByCode(code)

@@ -3,7 +3,7 @@ import { endUserSessions } from '../../domain/accounts/session-store'
 
 export default defineEventHandler(async (event) => {
   const admin = await requireRole(event, 'admin')
-  const { id } = await getValidatedRouterParams(event, idParamSchema.parse)
+  const { id } = readParams(event, idParamSchema)
   const body = await readValidatedBody(event, updateUserSchema.safeParse)
   if (!body.success) throw validationError(body.error)
   const change = body.data

@@ -6,7 +6,7 @@ import { publicProfile } from '../../../domain/profiles/filing'
 // The profiles of one airfield: filtered by a time range (validity overlapping it) and source, sorted, paged.
 export default defineEventHandler(async (event) => {
   await requireUser(event)
-  const { code } = await getValidatedRouterParams(event, airfieldCodeParamSchema.parse)
+  const { code } = readParams(event, airfieldCodeParamSchema)
   const query = await getValidatedQuery(event, profileListQuerySchema.safeParse)
   if (!query.success) throw validationError(query.error)
   const { from, to, source, status, sort, order, page, pageSize } = query.data

@@ -9,7 +9,7 @@ const querySchema = z.object({ entry: z.enum(['table', 'file', 'coded', 'api']).
 // Files a profile as JSON: a dispatcher's or admin's session, or a feed's API token (Authorization: Bearer).
 export default defineEventHandler(async (event) => {
   const actor = await requireFiler(event)
-  const { code } = await getValidatedRouterParams(event, airfieldCodeParamSchema.parse)
+  const { code } = readParams(event, airfieldCodeParamSchema)
   const query = await getValidatedQuery(event, querySchema.safeParse)
   if (!query.success) throw validationError(query.error)
   const { raw, value } = await readLimitedJson(event)

@@ -5,7 +5,7 @@ import { publicProfile } from '../../../domain/profiles/filing'
 // Withdraws an active profile with a reason; it stays, marked. Listeners hear of it in the same transaction.
 export default defineEventHandler(async (event) => {
   const user = await requireRole(event, 'dispatcher', 'admin')
-  const { id } = await getValidatedRouterParams(event, idParamSchema.parse)
+  const { id } = readParams(event, idParamSchema)
   const body = await readValidatedBody(event, withdrawSchema.safeParse)
   if (!body.success) throw validationError(body.error)
   const p = schema.profiles

@@ -2,7 +2,7 @@ import { idParamSchema } from '#shared/utils/schemas'
 
 export default defineEventHandler(async (event) => {
   const user = await requireUser(event)
-  const { id } = await getValidatedRouterParams(event, idParamSchema.parse)
+  const { id } = readParams(event, idParamSchema)
   const p = schema.pushSubscriptions
   const [result] = await useDB().delete(p).where(and(eq(p.id, id), eq(p.userId, user.id)))
   if (!result.affectedRows) throw createError({ statusCode: 404, statusMessage: `No push subscription #${id} of yours` })

@@ -12,7 +12,7 @@ const bodySchema = limitChangeSchema.extend({
 // An airfield's override (or one runway end's). Null for a figure means "inherit".
 export default defineEventHandler(async (event) => {
   const user = await requireRole(event, 'safety', 'admin')
-  const { code } = await getValidatedRouterParams(event, airfieldCodeParamSchema.parse)
+  const { code } = readParams(event, airfieldCodeParamSchema)
   const body = await readValidatedBody(event, bodySchema.safeParse)
   if (!body.success) throw validationError(body.error, 'The limits were not changed')
   const airfield = await airfieldByCode(code)

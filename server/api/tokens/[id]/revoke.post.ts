@@ -3,7 +3,7 @@ import { idParamSchema } from '#shared/utils/schemas'
 // Revokes a token for good (the row stays, marked). A dispatcher revokes their own; an admin any.
 export default defineEventHandler(async (event) => {
   const user = await requireRole(event, 'dispatcher', 'admin')
-  const { id } = await getValidatedRouterParams(event, idParamSchema.parse)
+  const { id } = readParams(event, idParamSchema)
   const t = schema.apiTokens
   const revoked = await useDB().transaction(async (tx) => {
     const scope = and(eq(t.id, id), isNull(t.revokedAt), user.role === 'admin' ? undefined : eq(t.createdByUserId, user.id))

@@ -22,7 +22,7 @@ const querySchema = z.object({
 
 export default defineEventHandler(async (event) => {
   const actor = await requireFiler(event)
-  const { code } = await getValidatedRouterParams(event, airfieldCodeParamSchema.parse)
+  const { code } = readParams(event, airfieldCodeParamSchema)
   const query = await getValidatedQuery(event, querySchema.safeParse)
   if (!query.success) throw validationError(query.error)
   const text = await readLimitedText(event)

@@ -9,7 +9,7 @@ const paramsSchema = z.object({ code: airfieldCodeSchema, id: idSchema('runway i
 // Replaces a runway's length and both ends (the ends are edited together so the pair stays consistent).
 export default defineEventHandler(async (event) => {
   const user = await requireRole(event, 'dispatcher', 'admin')
-  const { code, id } = await getValidatedRouterParams(event, paramsSchema.parse)
+  const { code, id } = readParams(event, paramsSchema)
   const body = await readValidatedBody(event, runwaySchema.safeParse)
   if (!body.success) throw validationError(body.error)
   const airfield = await airfieldByCode(code)

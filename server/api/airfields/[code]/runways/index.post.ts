@@ -4,7 +4,7 @@ import { airfieldByCode } from '../../../../domain/profiles/analysis'
 
 export default defineEventHandler(async (event) => {
   const user = await requireRole(event, 'dispatcher', 'admin')
-  const { code } = await getValidatedRouterParams(event, airfieldCodeParamSchema.parse)
+  const { code } = readParams(event, airfieldCodeParamSchema)
   const body = await readValidatedBody(event, runwaySchema.safeParse)
   if (!body.success) throw validationError(body.error)
   const airfield = await airfieldByCode(code)

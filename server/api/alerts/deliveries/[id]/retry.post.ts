@@ -3,7 +3,7 @@ import { idParamSchema } from '#shared/utils/schemas'
 // Puts a failed delivery back in the queue, due now.
 export default defineEventHandler(async (event) => {
   const user = await requireRole(event, 'safety', 'admin')
-  const { id } = await getValidatedRouterParams(event, idParamSchema.parse)
+  const { id } = readParams(event, idParamSchema)
   const o = schema.outbox
   const [result] = await useDB().update(o).set({ state: 'queued', nextAttemptAt: new Date(), updatedAt: new Date() })
     .where(and(eq(o.id, id), eq(o.state, 'failed')))

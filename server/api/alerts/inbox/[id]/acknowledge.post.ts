@@ -3,7 +3,7 @@ import { idParamSchema } from '#shared/utils/schemas'
 // Acknowledges one of the signed-in user's own inbox entries (404 for anyone else's).
 export default defineEventHandler(async (event) => {
   const user = await requireUser(event)
-  const { id } = await getValidatedRouterParams(event, idParamSchema.parse)
+  const { id } = readParams(event, idParamSchema)
   const i = schema.alertInbox
   const now = new Date()
   const [result] = await useDB().update(i).set({ acknowledgedAt: now }).where(and(eq(i.id, id), eq(i.userId, user.id), isNull(i.acknowledgedAt)))
