@@ -35,6 +35,15 @@ export default defineNuxtConfig({
   },
   typescript: { strict: true, typeCheck: false },
   telemetry: false,
+  hooks: {
+    // The API route table for server/middleware/api-methods.ts (405 with Allow for a known path and a method it lacks).
+    'nitro:init'(nitro) {
+      // Both the scanned route files and the handlers modules add (nuxt-auth-utils' /api/_auth/session).
+      nitro.options.virtual['#veerline/api-routes'] = () => `export default ${JSON.stringify([...nitro.scannedHandlers, ...nitro.options.handlers]
+        .filter(h => !h.middleware && h.route?.startsWith('/api/'))
+        .map(h => ({ route: h.route, method: h.method ?? null })))}`
+    },
+  },
   eslint: { config: { stylistic: true } },
   // nuxt-security 2.5.1: the headers and the CSP with a per-response nonce. Its defaults changed for Veerline: no
   // CORS answer at all (nothing but our own pages calls the API), no HSTS or upgrade-insecure-requests here (both are

@@ -1,17 +1,10 @@
-// Alerts inside the app: evaluation on every profile or limit change (in the same transaction) and the outbox
-// worker, which polls for due deliveries on an interval.
+// The outbox worker, which polls for due deliveries on an interval in every instance. (The evaluation itself is
+// called directly by filing, withdrawal and limit changes: server/domain/alerts/evaluate.ts.)
 import { randomBytes } from 'node:crypto'
-import { evaluateAirfield } from '../domain/alerts/evaluate'
 import { defaultSenders, runOutboxOnce } from '../domain/alerts/worker'
 import { vapidKeys } from '../domain/alerts/push'
 
 export default defineNitroPlugin((nitroApp) => {
-  const appUrl = () => process.env.NUXT_PUBLIC_APP_URL || useRuntimeConfig().public.appUrl
-
-  onProfileChange(async (change, tx) => {
-    await evaluateAirfield(tx, change.airfieldId, appUrl())
-  })
-
   if (process.env.VEERLINE_OUTBOX_WORKER === '0' || import.meta.prerender) return
   const instanceId = `${process.pid}-${randomBytes(3).toString('hex')}`
   const intervalMs = Number(process.env.VEERLINE_OUTBOX_INTERVAL_MS) || 500

@@ -22,6 +22,6 @@ export async function seedDemoAlerts(db: SeedDB) {
   }
   const appUrl = process.env.NUXT_PUBLIC_APP_URL || `http://127.0.0.1:${process.env.VEERLINE_PORT || 3000}`
   for (const airfield of airfields) {
-    await evaluateAirfield(db as unknown as Tx, airfield.id, appUrl)
+    await evaluateAirfield(db as unknown as Tx, airfield.id, { trigger: 'seed', actor: { label: 'demo seed' }, appUrl })
   }
 }

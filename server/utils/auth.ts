@@ -1,10 +1,12 @@
 import type { H3Event } from 'h3'
-import type { RoleName } from '#shared/utils/roles'
+import { can, rolesWith, type Capability } from '#shared/utils/capabilities'
 import type { User } from '../db/schema'
 import { sessionUserOrEnd } from '../domain/accounts/session-store'
+import { eq, schema, useDB } from './db'
+import type { FilingActor } from '../domain/profiles/filing'
+import { sha256Hex } from '../domain/accounts/api-tokens'
 
-// Who may file (a feed's API token or a signed-in dispatcher or admin); its body moves here from the accounts module.
-export { requireFiler } from '../domain/accounts/api-tokens'
+const unauthorised = (statusMessage: string) => createError({ statusCode: 401, statusMessage })
 
 /**
  * Who is asking: the signed-in user as the database knows them now, through a session that still holds
@@ -18,13 +20,13 @@ export async function requireUser(event: H3Event): Promise<User> {
   return user
 }
 
-/** requireUser, then 403 unless the user's role is one of `allowed`. */
-export async function requireRole(event: H3Event, ...allowed: RoleName[]): Promise<User> {
+/** requireUser, then 403 unless the user's role has `capability` (shared/utils/capabilities.ts). */
+export async function requireCapability(event: H3Event, capability: Capability): Promise<User> {
   const user = await requireUser(event)
-  if (!allowed.includes(user.role)) {
+  if (!can(user, capability)) {
     throw createError({
       statusCode: 403,
-      statusMessage: `This needs the role ${allowed.join(' or ')}; you are signed in as ${user.role}`,
+      statusMessage: `This needs the role ${rolesWith(capability).join(' or ')}; you are signed in as ${user.role}`,
     })
   }
   return user
@@ -32,6 +34,30 @@ export async function requireRole(event: H3Event, ...allowed: RoleName[]): Promi
 
 export function sessionUser(user: User) {
   return { id: user.id, email: user.email, name: user.name, role: user.role }
+}
+
+/**
+ * Who may file profiles: a feed with `Authorization: Bearer <token>` (a live token whose maker may still file
+ * profiles), else a signed-in user with 'file-profile'. 401 for a bad token or no session.
+ */
+export async function requireFiler(event: H3Event): Promise<FilingActor> {
+  const header = getHeader(event, 'authorization')
+  if (header === undefined) {
+    const user = await requireCapability(event, 'file-profile')
+    return { user, token: null }
+  }
+  const m = /^Bearer\s+(\S+)$/i.exec(header.trim())
+  if (!m) throw unauthorised('The Authorization header must be "Bearer <API token>"')
+  const db = useDB()
+  const [token] = await db.select().from(schema.apiTokens).where(eq(schema.apiTokens.tokenHash, sha256Hex(m[1]!)))
+  if (!token) throw unauthorised('This API token is not known')
+  if (token.revokedAt) throw unauthorised(`This API token was revoked on ${token.revokedAt.toISOString()}`)
+  const [user] = await db.select().from(schema.users).where(eq(schema.users.id, token.createdByUserId))
+  if (!user || user.disabled || !can(user, 'file-profile')) {
+    throw createError({ statusCode: 403, statusMessage: 'The person who made this API token may no longer file profiles' })
+  }
+  await db.update(schema.apiTokens).set({ lastUsedAt: new Date() }).where(eq(schema.apiTokens.id, token.id))
+  return { user, token: { id: token.id, name: token.name } }
 }
 
 declare module 'h3' {

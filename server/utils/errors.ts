@@ -1,5 +1,4 @@
-import type { z, ZodError, ZodIssue, ZodTypeAny } from 'zod'
-import type { H3Event } from 'h3'
+import type { ZodError, ZodIssue } from 'zod'
 
 /** One refused field: `field` is a path spelled `levels[1].directionDeg`; `line` and `index` place it in a file or list. */
 export type FieldIssue = { field: string, message: string, line?: number, index?: number }
@@ -74,20 +73,10 @@ export function forbidden(message: string): DomainError {
 
 /** Turns a zod error into a 422 whose data lists every field with its message. */
 export function validationError(error: ZodError, statusMessage = 'Some fields need attention') {
-  const issues: FieldIssue[] = error.issues.map(i => ({ field: i.path.join('.') || '(body)', message: i.message }))
+  const issues = issuesOf(error)
   return createError({
     statusCode: 422,
     statusMessage: invalidMessage(issues, statusMessage),
     data: { issues },
   })
-}
-
-/**
- * The route's path params checked by `schema`. A refused param is a 422 of the one contract (never h3's 400 with a
- * raw dump, which `getValidatedRouterParams(event, schema.parse)` gives).
- */
-export function readParams<S extends ZodTypeAny>(event: H3Event, schema: S, statusMessage = 'The address is not valid'): z.infer<S> {
-  const parsed = schema.safeParse(getRouterParams(event, { decode: true }))
-  if (!parsed.success) throw validationError(parsed.error, statusMessage)
-  return parsed.data
 }

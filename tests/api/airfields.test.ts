@@ -77,7 +77,7 @@ describe('airfields and runways', () => {
     })
     const notOpposite = await post('09', '28', 90, 270)
     expect(notOpposite.status).toBe(422)
-    expect(notOpposite.body.data.issues[0]).toMatchObject({ field: 'ends.1.designator' })
+    expect(notOpposite.body.data.issues[0]).toMatchObject({ field: 'ends[1].designator' })
     expect(notOpposite.body.data.issues[0].message).toContain('18 apart')
     expect((await post('09L', '27L', 90, 270)).status).toBe(422)
     expect((await post('09C', '27R', 90, 270)).status).toBe(422)

@@ -2,7 +2,7 @@ import { airfieldCodeParamSchema } from '#shared/utils/airfield-schema'
 import { airfieldDetail, profileStateOf } from '../../domain/airfields'
 import { airfieldByCode } from '../../domain/profiles/analysis'
 
-export default defineEventHandler(async (event) => {
+export default defineApiHandler(async (event) => {
   await requireUser(event)
   const { code } = readParams(event, airfieldCodeParamSchema)
   const airfield = await airfieldByCode(code)

@@ -1,12 +1,11 @@
 import { airfieldCodeParamSchema, airfieldUpdateSchema } from '#shared/utils/airfield-schema'
 import { airfieldDetail } from '../../domain/airfields'
 
-export default defineEventHandler(async (event) => {
-  const user = await requireRole(event, 'dispatcher', 'admin')
+export default defineApiHandler(async (event) => {
+  const user = await requireCapability(event, 'manage-airfields')
   const { code } = readParams(event, airfieldCodeParamSchema)
-  const body = await readValidatedBody(event, airfieldUpdateSchema.safeParse)
-  if (!body.success) throw validationError(body.error)
-  const { elevation, ...rest } = body.data
+  const body = await readBodyWith(event, airfieldUpdateSchema)
+  const { elevation, ...rest } = body
   const change: Record<string, unknown> = { ...rest }
   if (elevation !== undefined) change.elevationM = rest.elevationUnit === 'ft' ? elevation * 0.3048 : elevation
   if (rest.magVarOverrideDeg === null) change.magVarOverrideReason = null

@@ -2,11 +2,10 @@ import { airfieldCreateSchema } from '#shared/utils/airfield-schema'
 import { airfieldDetail } from '../../domain/airfields'
 import { airfieldByCode } from '../../domain/profiles/analysis'
 
-export default defineEventHandler(async (event) => {
-  const user = await requireRole(event, 'dispatcher', 'admin')
-  const body = await readValidatedBody(event, airfieldCreateSchema.safeParse)
-  if (!body.success) throw validationError(body.error)
-  const { elevation, ...rest } = body.data
+export default defineApiHandler(async (event) => {
+  const user = await requireCapability(event, 'manage-airfields')
+  const body = await readBodyWith(event, airfieldCreateSchema)
+  const { elevation, ...rest } = body
   const values = {
     ...rest,
     elevationM: rest.elevationUnit === 'ft' ? elevation * 0.3048 : elevation,

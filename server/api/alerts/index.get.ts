@@ -9,20 +9,19 @@ const querySchema = z.object({
 })
 
 // The alert log: every alert with each of its deliveries (state, attempts, last error). Safety officers and admins.
-export default defineEventHandler(async (event) => {
-  await requireRole(event, 'safety', 'admin')
-  const query = await getValidatedQuery(event, querySchema.safeParse)
-  if (!query.success) throw validationError(query.error)
+export default defineApiHandler(async (event) => {
+  await requireCapability(event, 'read-alert-log')
+  const query = readQuery(event, querySchema)
   const a = schema.alerts
-  const airfield = query.data.airfield ? await airfieldByCode(query.data.airfield) : null
-  if (query.data.airfield && !airfield) throw createError({ statusCode: 404, statusMessage: `No airfield with the code ${query.data.airfield}` })
+  const airfield = query.airfield ? await airfieldByCode(query.airfield) : null
+  if (query.airfield && !airfield) throw createError({ statusCode: 404, statusMessage: `No airfield with the code ${query.airfield}` })
   const rows = await useDB().select({ alert: a, airfieldCode: schema.airfields.code, profile: { validFrom: schema.profiles.validFrom, validTo: schema.profiles.validTo } })
     .from(a)
     .innerJoin(schema.airfields, eq(schema.airfields.id, a.airfieldId))
     .innerJoin(schema.profiles, eq(schema.profiles.id, a.profileId))
-    .where(and(airfield ? eq(a.airfieldId, airfield.id) : undefined, query.data.state ? eq(a.state, query.data.state) : undefined))
+    .where(and(airfield ? eq(a.airfieldId, airfield.id) : undefined, query.state ? eq(a.state, query.state) : undefined))
     .orderBy(desc(a.id))
-    .limit(query.data.limit)
+    .limit(query.limit)
   const o = schema.outbox
   const deliveries = rows.length
     ? await useDB().select({ id: o.id, alertId: o.alertId, kind: o.kind, channel: o.channel, to: o.toAddress, userId: o.userId, state: o.state,

@@ -1,11 +1,10 @@
 import { auditQuerySchema } from '#shared/utils/profile-schema'
 
 // The audit log, newest first, filtered; admins and safety officers read it.
-export default defineEventHandler(async (event) => {
-  await requireRole(event, 'admin', 'safety')
-  const query = await getValidatedQuery(event, auditQuerySchema.safeParse)
-  if (!query.success) throw validationError(query.error)
-  const { entityType, action, actor, q, from, to, page, pageSize } = query.data
+export default defineApiHandler(async (event) => {
+  await requireCapability(event, 'read-audit')
+  const query = readQuery(event, auditQuerySchema)
+  const { entityType, action, actor, q, from, to, page, pageSize } = query
   const t = schema.auditLog
   const conditions = [
     entityType ? eq(t.entityType, entityType) : undefined,

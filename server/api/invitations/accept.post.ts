@@ -1,4 +1,10 @@
-import { acceptToken } from '../../domain/accounts/accept-token'
+import { acceptToken, acceptTokenSchema } from '../../domain/accounts/accept-token'
+import { startSession } from '../../domain/accounts/session-store'
 
-// Public: the invited person sets a password with the link's token (single use) and is signed in.
-export default defineEventHandler(event => acceptToken(event, 'invitation'))
+// Public: accepts an invitation with its single-use token and a new password, then signs the person in.
+export default defineApiHandler(async (event) => {
+  const body = await readBodyWith(event, acceptTokenSchema, 'The password was not set')
+  const user = await acceptToken('invitation', body)
+  await startSession(event, user, sessionUser(user))
+  return { user: sessionUser(user) }
+})

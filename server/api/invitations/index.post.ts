@@ -5,11 +5,10 @@ import { issueToken } from '../../domain/accounts/tokens'
 const bodySchema = z.object({ email: emailSchema, name: z.string().trim().min(1, 'Name is required').max(120), role: roleSchema })
 
 // An admin invites a person by e-mail: the user is made without a password and the link lets them set one.
-export default defineEventHandler(async (event) => {
-  const admin = await requireRole(event, 'admin')
-  const body = await readValidatedBody(event, bodySchema.safeParse)
-  if (!body.success) throw validationError(body.error, 'The invitation was not sent')
-  const { email, name, role } = body.data
+export default defineApiHandler(async (event) => {
+  const admin = await requireCapability(event, 'manage-users')
+  const body = await readBodyWith(event, bodySchema, 'The invitation was not sent')
+  const { email, name, role } = body
   const appUrl = process.env.NUXT_PUBLIC_APP_URL || useRuntimeConfig().public.appUrl
   const result = await useDB().transaction(async (tx) => {
     const [existing] = await tx.select().from(schema.users).where(eq(schema.users.email, email)).for('update')

@@ -11,15 +11,14 @@ const querySchema = z.object({
 
 // The messages the local SMTP stand-in received, newest first. Admins only, and only where the stand-ins run (never
 // in production). Invitation and reset links are masked unless the admin asks to reveal them (recorded in the audit).
-export default defineEventHandler(async (event) => {
-  const admin = await requireRole(event, 'admin')
-  if (!standinsEnabled()) throw createError({ statusCode: 404, statusMessage: 'There is no mailbox stand-in in production' })
-  const query = await getValidatedQuery(event, querySchema.safeParse)
-  if (!query.success) throw validationError(query.error)
-  const to = query.data.to?.toLowerCase()
-  const reveal = query.data.reveal === '1' || query.data.reveal === 'true'
+export default defineApiHandler(async (event) => {
+  const admin = await requireCapability(event, 'read-mailbox')
+  if (!standinsEnabled()) throw notFound('There is no mailbox stand-in in production')
+  const query = readQuery(event, querySchema)
+  const to = query.to?.toLowerCase()
+  const reveal = query.reveal === '1' || query.reveal === 'true'
   const all = (await readMailbox()).filter(m => !to || m.envelopeTo.some(t => t.toLowerCase() === to))
-  const messages = all.reverse().slice(0, query.data.limit)
+  const messages = all.reverse().slice(0, query.limit)
   if (reveal) await recordAudit(useDB(), { user: admin }, 'mailbox.reveal-links', 'mailbox', 'stand-in', { to: to ?? null, count: messages.length })
   return {
     messages: reveal ? messages : messages.map(m => ({ ...m, text: maskTokenLinks(m.text), html: m.html === null ? null : maskTokenLinks(m.html) })),

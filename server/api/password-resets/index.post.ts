@@ -7,12 +7,11 @@ const RESET_WINDOW_MS = 15 * 60 * 1000
 const RESET_MAX_PER_WINDOW = 3
 
 // Public: asks for a reset link. The answer is the same whether or not the address has an account.
-export default defineEventHandler(async (event) => {
-  const body = await readValidatedBody(event, bodySchema.safeParse)
-  if (!body.success) throw validationError(body.error, 'Enter the e-mail address of your account')
+export default defineApiHandler(async (event) => {
+  const body = await readBodyWith(event, bodySchema, 'Enter the e-mail address of your account')
   const appUrl = process.env.NUXT_PUBLIC_APP_URL || useRuntimeConfig().public.appUrl
   await useDB().transaction(async (tx) => {
-    const [user] = await tx.select().from(schema.users).where(eq(schema.users.email, body.data.email)).for('update')
+    const [user] = await tx.select().from(schema.users).where(eq(schema.users.email, body.email)).for('update')
     // At most 3 links per account per 15 minutes, so the address cannot be flooded; the answer stays the same.
     // The count runs for an unknown address too (for no user), so both take the same reads.
     const t = schema.userTokens

@@ -2,7 +2,7 @@ import { idParamSchema } from '#shared/utils/schemas'
 import { publicProfile } from '../../domain/profiles/filing'
 
 // One profile as filed, with its history links (what it superseded, what superseded it).
-export default defineEventHandler(async (event) => {
+export default defineApiHandler(async (event) => {
   await requireUser(event)
   const { id } = readParams(event, idParamSchema)
   const p = schema.profiles

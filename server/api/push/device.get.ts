@@ -2,7 +2,7 @@ import { pushStandinUrl } from '../../domain/standins/push-device'
 import { standinsEnabled } from '../../domain/alerts/standins'
 
 // What the push-service stand-in received (verified and decrypted) for the signed-in user's simulated devices.
-export default defineEventHandler(async (event) => {
+export default defineApiHandler(async (event) => {
   const user = await requireUser(event)
   if (!standinsEnabled()) throw createError({ statusCode: 404, statusMessage: 'There is no push-service stand-in in production' })
   const p = schema.pushSubscriptions

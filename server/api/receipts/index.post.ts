@@ -2,11 +2,10 @@ import { receiptBodySchema } from '#shared/utils/briefing-schemas'
 import { receiptOf } from '../../domain/briefings/receipts'
 
 // A pilot marks the briefing of one profile version as read. Marking it again changes nothing (200).
-export default defineEventHandler(async (event) => {
-  const user = await requireRole(event, 'pilot')
-  const body = await readValidatedBody(event, receiptBodySchema.safeParse)
-  if (!body.success) throw validationError(body.error, 'The read receipt is not valid')
-  const { profileId } = body.data
+export default defineApiHandler(async (event) => {
+  const user = await requireCapability(event, 'record-receipt')
+  const body = await readBodyWith(event, receiptBodySchema, 'The read receipt is not valid')
+  const { profileId } = body
   const created = await useDB().transaction(async (tx) => {
     const [profile] = await tx.select().from(schema.profiles).where(eq(schema.profiles.id, profileId))
     if (!profile) throw createError({ statusCode: 404, statusMessage: `No profile with id ${profileId}` })

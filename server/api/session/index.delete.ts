@@ -1,5 +1,5 @@
 // Signs this browser out: its session row goes (server/plugins/security.ts ends it on clear) and the cookie is emptied.
-export default defineEventHandler(async (event) => {
+export default defineApiHandler(async (event) => {
   await requireUser(event)
   await clearUserSession(event)
   setResponseStatus(event, 204)

@@ -4,12 +4,8 @@ import { startSession } from '../../domain/accounts/session-store'
 import { clientAddress, recordSignInFailure, signInWaitS } from '../../domain/accounts/sign-in-limit'
 
 // Signing in is the one route open to a signed-out caller.
-export default defineEventHandler(async (event) => {
-  const body = await readValidatedBody(event, signInSchema.safeParse)
-  if (!body.success) {
-    throw createError({ statusCode: 400, statusMessage: 'Enter an e-mail and a password', data: { issues: body.error.issues } })
-  }
-  const { email, password } = body.data
+export default defineApiHandler(async (event) => {
+  const { email, password } = await readBodyWith(event, signInSchema, 'Enter an e-mail and a password')
   const address = clientAddress(event)
 
   const waitS = await signInWaitS(email, address)

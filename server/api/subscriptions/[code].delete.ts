@@ -1,7 +1,7 @@
 import { airfieldCodeParamSchema } from '#shared/utils/airfield-schema'
 import { airfieldByCode } from '../../domain/profiles/analysis'
 
-export default defineEventHandler(async (event) => {
+export default defineApiHandler(async (event) => {
   const user = await requireUser(event)
   const { code } = readParams(event, airfieldCodeParamSchema)
   const airfield = await airfieldByCode(code)

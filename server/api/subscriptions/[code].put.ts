@@ -8,14 +8,13 @@ const bodySchema = z.object({
 })
 
 // Follows an airfield (or changes the channels). The in-app inbox always receives its alerts.
-export default defineEventHandler(async (event) => {
+export default defineApiHandler(async (event) => {
   const user = await requireUser(event)
   const { code } = readParams(event, airfieldCodeParamSchema)
-  const body = await readValidatedBody(event, bodySchema.safeParse)
-  if (!body.success) throw validationError(body.error)
+  const body = await readBodyWith(event, bodySchema)
   const airfield = await airfieldByCode(code)
   if (!airfield) throw createError({ statusCode: 404, statusMessage: `No airfield with the code ${code}` })
-  await useDB().insert(schema.alertSubscriptions).values({ userId: user.id, airfieldId: airfield.id, ...body.data })
-    .onDuplicateKeyUpdate({ set: body.data })
-  return { airfieldCode: airfield.code, ...body.data }
+  await useDB().insert(schema.alertSubscriptions).values({ userId: user.id, airfieldId: airfield.id, ...body })
+    .onDuplicateKeyUpdate({ set: body })
+  return { airfieldCode: airfield.code, ...body }
 })

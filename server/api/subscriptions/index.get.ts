@@ -1,5 +1,5 @@
 // The signed-in user's subscriptions (airfields × channels) and the airfields there are to choose from.
-export default defineEventHandler(async (event) => {
+export default defineApiHandler(async (event) => {
   const user = await requireUser(event)
   const s = schema.alertSubscriptions
   const [subs, airfields, devices] = await Promise.all([

@@ -5,20 +5,19 @@ import { airfieldByCode } from '../../domain/profiles/analysis'
 const querySchema = z.object({ airfield: z.string().trim().regex(/^[A-Za-z]{4}$/, 'airfield must be a four-letter code').optional(), limit: decimalIntSchema('limit', 1, 500).default(100) })
 
 // Who changed which limits when, why, and from what to what.
-export default defineEventHandler(async (event) => {
-  await requireRole(event, 'safety', 'admin')
-  const query = await getValidatedQuery(event, querySchema.safeParse)
-  if (!query.success) throw validationError(query.error)
+export default defineApiHandler(async (event) => {
+  await requireCapability(event, 'manage-limits')
+  const query = readQuery(event, querySchema)
   const c = schema.thresholdChanges
-  const airfield = query.data.airfield ? await airfieldByCode(query.data.airfield) : null
-  if (query.data.airfield && !airfield) throw createError({ statusCode: 404, statusMessage: `No airfield with the code ${query.data.airfield}` })
+  const airfield = query.airfield ? await airfieldByCode(query.airfield) : null
+  if (query.airfield && !airfield) throw createError({ statusCode: 404, statusMessage: `No airfield with the code ${query.airfield}` })
   const rows = await useDB().select({ change: c, by: { name: schema.users.name, email: schema.users.email }, airfieldCode: schema.airfields.code })
     .from(c)
     .innerJoin(schema.users, eq(schema.users.id, c.changedByUserId))
     .leftJoin(schema.airfields, eq(schema.airfields.id, c.airfieldId))
     .where(airfield ? eq(c.airfieldId, airfield.id) : undefined)
     .orderBy(desc(c.changedAt), desc(c.id))
-    .limit(query.data.limit)
+    .limit(query.limit)
   return {
     changes: rows.map(r => ({
       id: r.change.id, scope: r.change.airfieldId == null ? 'organisation' : r.change.designator ? 'runway end' : 'airfield',

@@ -3,7 +3,7 @@ import { layerLimits } from '../../domain/alerts/limit-sets'
 import { ORG_SCOPE, effectiveLimits, scopeKeyOf, valuesOf } from '../../domain/alerts/limits'
 
 // Every limit set with what is in force: the organisation default and each airfield's override and runway ends.
-export default defineEventHandler(async (event) => {
+export default defineApiHandler(async (event) => {
   await requireUser(event)
   const db = useDB()
   const [sets, airfields, ends] = await Promise.all([

@@ -1,6 +1,6 @@
 // API tokens: a dispatcher sees their own, an admin sees all. The token itself is never shown again.
-export default defineEventHandler(async (event) => {
-  const user = await requireRole(event, 'dispatcher', 'admin')
+export default defineApiHandler(async (event) => {
+  const user = await requireCapability(event, 'manage-tokens')
   const t = schema.apiTokens
   const rows = await useDB().select({
     id: t.id, name: t.name, tokenPrefix: t.tokenPrefix, createdAt: t.createdAt, lastUsedAt: t.lastUsedAt, revokedAt: t.revokedAt,

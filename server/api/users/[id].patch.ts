@@ -1,12 +1,11 @@
 import { idParamSchema, updateUserSchema } from '#shared/utils/schemas'
 import { endUserSessions } from '../../domain/accounts/session-store'
 
-export default defineEventHandler(async (event) => {
-  const admin = await requireRole(event, 'admin')
+export default defineApiHandler(async (event) => {
+  const admin = await requireCapability(event, 'manage-users')
   const { id } = readParams(event, idParamSchema)
-  const body = await readValidatedBody(event, updateUserSchema.safeParse)
-  if (!body.success) throw validationError(body.error)
-  const change = body.data
+  const body = await readBodyWith(event, updateUserSchema)
+  const change = body
   if (id === admin.id && (change.disabled || (change.role && change.role !== 'admin'))) {
     throw createError({ statusCode: 409, statusMessage: 'You cannot disable yourself or remove your own admin role' })
   }

@@ -1,5 +1,5 @@
-export default defineEventHandler(async (event) => {
-  await requireRole(event, 'admin')
+export default defineApiHandler(async (event) => {
+  await requireCapability(event, 'manage-users')
   const rows = await useDB().select({
     id: schema.users.id,
     email: schema.users.email,

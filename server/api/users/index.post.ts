@@ -1,10 +1,9 @@
 import { createUserSchema } from '#shared/utils/schemas'
 
-export default defineEventHandler(async (event) => {
-  const admin = await requireRole(event, 'admin')
-  const body = await readValidatedBody(event, createUserSchema.safeParse)
-  if (!body.success) throw validationError(body.error)
-  const { email, name, role, password } = body.data
+export default defineApiHandler(async (event) => {
+  const admin = await requireCapability(event, 'manage-users')
+  const body = await readBodyWith(event, createUserSchema)
+  const { email, name, role, password } = body
 
   const [existing] = await useDB().select({ id: schema.users.id }).from(schema.users).where(eq(schema.users.email, email))
   if (existing) throw createError({ statusCode: 409, statusMessage: `A user with the e-mail ${email} already exists`, data: { issues: [{ field: 'email', message: 'already in use' }] } })

@@ -5,7 +5,7 @@ import { airfieldByCode, runwayEndInputsOf } from '../../domain/profiles/analysi
 import { profileIssuesError, withLevelPlaces, zodProfileError } from '../../domain/profiles/filing'
 
 // Runs the wind engine on levels without saving anything: for the entry form's live preview and for other systems.
-export default defineEventHandler(async (event) => {
+export default defineApiHandler(async (event) => {
   if (getHeader(event, 'authorization') !== undefined) await requireFiler(event)
   else await requireUser(event)
   const body = await readLimitedJson(event)

@@ -1,7 +1,11 @@
 // Alert evaluation inside the transaction that changed profiles or limits: analyse the profiles in force at the
 // airfield, plan the alert changes (plan.ts), apply them and queue the notices in the outbox, all in that transaction.
+// Filing, withdrawing and limit changes call it directly, once per airfield and change; each run leaves one audit
+// entry ('alerts.evaluate'), so a reader (and a test) can count the runs.
 import { and, eq, gt, inArray, schema, sql } from '../../utils/db'
 import type { Tx } from '../../utils/db'
+import { recordAudit, type AuditActor } from '../../utils/audit'
+import type { ProfileAnalysis } from '../../../shared/wind'
 import { loadAndAnalyseProfiles } from '../profiles/analysis'
 import { effectiveLimits } from './limits'
 import { evaluateLimits, type LimitCheck } from '../../../shared/limits'
@@ -10,16 +14,39 @@ import { enqueueAlertNotices } from './outbox'
 
 export interface EvaluationSummary { airfieldId: number, raised: number[], cleared: number[], carried: number[], updated: number[] }
 
-export async function evaluateAirfield(tx: Tx, airfieldId: number, appUrl: string, now = new Date()): Promise<EvaluationSummary> {
+/** What caused an evaluation, for its audit entry. */
+export type EvaluationTrigger = 'profile.file' | 'profile.withdraw' | 'limits.change' | 'seed'
+
+export interface EvaluationOptions {
+  trigger: EvaluationTrigger
+  actor: AuditActor
+  /** The base of the links in notices; defaults to the app's configured address. */
+  appUrl?: string
+  now?: Date
+  /** Analyses already made by the caller (the profile just filed), so the engine does not run twice on them. */
+  analyses?: ReadonlyMap<number, ProfileAnalysis>
+}
+
+/** The app's public address, for links in notices. */
+export function appUrlOf(): string {
+  return process.env.NUXT_PUBLIC_APP_URL || useRuntimeConfig().public.appUrl
+}
+
+export async function evaluateAirfield(tx: Tx, airfieldId: number, options: EvaluationOptions): Promise<EvaluationSummary> {
+  const now = options.now ?? new Date()
+  const appUrl = options.appUrl ?? appUrlOf()
   // One evaluation per airfield at a time: two filings at once must not both insert or both clear.
   await tx.execute(sql`SELECT id FROM airfields WHERE id = ${airfieldId} FOR UPDATE`)
 
   const p = schema.profiles
   const inForce = await tx.select({ id: p.id }).from(p)
     .where(and(eq(p.airfieldId, airfieldId), eq(p.status, 'active'), gt(p.validTo, now)))
-  const analysed = await loadAndAnalyseProfiles(inForce.map(r => r.id), tx)
+  const known = options.analyses ?? new Map<number, ProfileAnalysis>()
+  const loaded = await loadAndAnalyseProfiles(inForce.map(r => r.id).filter(id => !known.has(id)), tx)
+  const analysisOf = new Map<number, ProfileAnalysis>([...known, ...loaded.map(a => [a.profile.id, a.analysis] as const)])
   const lim = await effectiveLimits(airfieldId, tx)
-  const candidates = analysed.map(a => ({ profileId: a.profile.id, checks: evaluateLimits(a.analysis, lim.limits, lim.limitsFor) }))
+  const candidates = inForce.filter(r => analysisOf.has(r.id))
+    .map(r => ({ profileId: r.id, checks: evaluateLimits(analysisOf.get(r.id)!, lim.limits, lim.limitsFor) }))
 
   const a = schema.alerts
   const existing = await tx.select().from(a).where(and(eq(a.airfieldId, airfieldId),
@@ -74,5 +101,9 @@ export async function evaluateAirfield(tx: Tx, airfieldId: number, appUrl: strin
         break
     }
   }
+  await recordAudit(tx, options.actor, 'alerts.evaluate', 'airfield', airfieldId, {
+    trigger: options.trigger, profilesInForce: inForce.length, analysedAgain: loaded.length,
+    raised: summary.raised, cleared: summary.cleared, carried: summary.carried, updated: summary.updated,
+  })
   return summary
 }

@@ -4,7 +4,7 @@ import { and, eq, gt, schema, sql } from '../../utils/db'
 import type { DB } from '../../utils/db'
 import type { User } from '../../db/schema'
 import { recordAudit } from '../../utils/audit'
-import { emitProfileChange } from '../../utils/profile-events'
+import { evaluateAirfield } from './evaluate'
 import { scopeKeyOf, valuesOf } from './limits'
 import { LIMIT_KEYS, type PartialLimits } from './limit-sets'
 
@@ -31,7 +31,7 @@ export async function saveLimitSet(db: DB, user: User, target: { airfieldId: num
       ? [target.airfieldId]
       : (await tx.selectDistinct({ id: p.airfieldId }).from(p).where(and(eq(p.status, 'active'), gt(p.validTo, now)))).map(r => r.id)
     for (const airfieldId of airfieldIds.sort((a, b) => a - b)) {
-      await emitProfileChange(tx, { kind: 'thresholds-changed', airfieldId, actorUserId: user.id })
+      await evaluateAirfield(tx, airfieldId, { trigger: 'limits.change', actor: { user } })
     }
     const [alertCount] = await tx.select({ n: sql<number>`COUNT(*)` }).from(schema.alerts).where(eq(schema.alerts.state, 'active'))
     return { changeId: change!.id, scopeKey, oldValues, newValues, changedAt: now.toISOString(), activeAlerts: Number(alertCount?.n ?? 0) }

@@ -6,7 +6,7 @@ import { airfieldDeclination, runwayEndInputsOf } from './analysis'
 import { and, eq, gt, inArray, lt, ne, schema } from '../../utils/db'
 import type { Tx } from '../../utils/db'
 import { recordAudit, type AuditActor } from '../../utils/audit'
-import { emitProfileChange } from '../../utils/profile-events'
+import { evaluateAirfield } from '../alerts/evaluate'
 import type { FieldIssue } from '../../utils/errors'
 
 /** Who files: a signed-in person, or a feed with an API token acting for the person who made the token. */
@@ -128,8 +128,8 @@ export type FiledProfile = {
 
 /**
  * Files one profile in the caller's transaction: validates it, saves it and its levels, supersedes the active
- * profiles of the same airfield whose validity overlaps, records the audit entries and tells the listeners
- * (alert evaluation) inside the same transaction. Any error leaves nothing behind once the transaction rolls back.
+ * profiles of the same airfield whose validity overlaps, records the audit entries and evaluates the airfield's
+ * alerts once, inside the same transaction. Any error leaves nothing behind once the transaction rolls back.
  */
 export async function fileProfile(tx: Tx, { airfield, input, actor, entryMethod, lineOf, details }: {
   airfield: Airfield
@@ -184,10 +184,9 @@ export async function fileProfile(tx: Tx, { airfield, input, actor, entryMethod,
     await recordAudit(tx, who, 'profile.supersede', 'profile', id, { airfieldCode: airfield.code, supersededById: profileId })
   }
 
-  await emitProfileChange(tx, { kind: 'filed', airfieldId: airfield.id, profileId, actorUserId: actor.user.id })
-  for (const id of supersededIds) {
-    await emitProfileChange(tx, { kind: 'superseded', airfieldId: airfield.id, profileId: id, actorUserId: actor.user.id })
-  }
+  // One evaluation of the airfield for the whole filing (new profile and the ones it superseded), with the analysis
+  // made above.
+  await evaluateAirfield(tx, airfield.id, { trigger: 'profile.file', actor: who, analyses: new Map([[profileId, analysis]]) })
 
   const [saved] = await tx.select().from(schema.profiles).where(eq(schema.profiles.id, profileId))
   return { profile: publicProfile(saved!, airfield.code, p.levels, supersededIds), warnings: analysis.warnings }

@@ -4,13 +4,11 @@ import { readBriefing, type BriefingAnswer } from '../../../domain/briefings/rea
 
 // The runway briefing of an airfield: the profile valid now (or at ?at=, or the version ?profile=), every role.
 // Answered from the analysis cache as JSON text, with a weak ETag (304 when the reader already has it).
-export default defineEventHandler(async (event) => {
-  const user = await requireRole(event, 'admin', 'dispatcher', 'pilot', 'safety')
-  const params = await getValidatedRouterParams(event, airfieldCodeParamSchema.safeParse)
-  if (!params.success) throw validationError(params.error, 'The airfield code is not valid')
-  const query = await getValidatedQuery(event, briefingQuerySchema.safeParse)
-  if (!query.success) throw validationError(query.error, 'The briefing query is not valid')
-  const read = await readBriefing(params.data.code, user.id, { at: query.data.at, profileId: query.data.profile, precision: query.data.precision })
+export default defineApiHandler(async (event) => {
+  const user = await requireCapability(event, 'read-briefings')
+  const params = readParams(event, airfieldCodeParamSchema)
+  const query = readQuery(event, briefingQuerySchema)
+  const read = await readBriefing(params.code, user.id, { at: query.at, profileId: query.profile, precision: query.precision })
   if (read.kind === 'no-airfield') throw createError({ statusCode: 404, statusMessage: `No airfield with the code ${read.code}` })
   if (read.kind === 'no-such-profile') throw createError({ statusCode: 404, statusMessage: `Profile ${read.profileId} is not a profile of ${read.code}` })
   setResponseHeader(event, 'etag', read.etag)

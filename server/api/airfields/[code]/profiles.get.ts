@@ -4,12 +4,11 @@ import { airfieldByCode } from '../../../domain/profiles/analysis'
 import { publicProfile } from '../../../domain/profiles/filing'
 
 // The profiles of one airfield: filtered by a time range (validity overlapping it) and source, sorted, paged.
-export default defineEventHandler(async (event) => {
+export default defineApiHandler(async (event) => {
   await requireUser(event)
   const { code } = readParams(event, airfieldCodeParamSchema)
-  const query = await getValidatedQuery(event, profileListQuerySchema.safeParse)
-  if (!query.success) throw validationError(query.error)
-  const { from, to, source, status, sort, order, page, pageSize } = query.data
+  const query = readQuery(event, profileListQuerySchema)
+  const { from, to, source, status, sort, order, page, pageSize } = query
   const airfield = await airfieldByCode(code)
   if (!airfield) throw createError({ statusCode: 404, statusMessage: `No airfield with the code ${code}` })
   const p = schema.profiles

@@ -7,11 +7,10 @@ import { fileProfile } from '../../../domain/profiles/filing'
 const querySchema = z.object({ entry: z.enum(['table', 'file', 'coded', 'api']).default('api') })
 
 // Files a profile as JSON: a dispatcher's or admin's session, or a feed's API token (Authorization: Bearer).
-export default defineEventHandler(async (event) => {
+export default defineApiHandler(async (event) => {
   const actor = await requireFiler(event)
   const { code } = readParams(event, airfieldCodeParamSchema)
-  const query = await getValidatedQuery(event, querySchema.safeParse)
-  if (!query.success) throw validationError(query.error)
+  const query = readQuery(event, querySchema)
   const { raw, value } = await readLimitedJson(event)
   const claim = idempotencyClaim(event, actor, raw)
   if (claim) {
@@ -27,7 +26,7 @@ export default defineEventHandler(async (event) => {
 
   try {
     const answer = await useDB().transaction(async (tx) => {
-      const filed = await fileProfile(tx, { airfield, input: value, actor, entryMethod: actor.token ? 'api' : query.data.entry })
+      const filed = await fileProfile(tx, { airfield, input: value, actor, entryMethod: actor.token ? 'api' : query.entry })
       if (claim) await storeAnswer(tx, claim, 201, filed)
       return filed
     })

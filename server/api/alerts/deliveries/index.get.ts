@@ -8,15 +8,14 @@ const querySchema = z.object({
 })
 
 // The outbox itself, newest first: every notice (alerts, invitations, resets) and how its delivery stands.
-export default defineEventHandler(async (event) => {
-  await requireRole(event, 'safety', 'admin')
-  const query = await getValidatedQuery(event, querySchema.safeParse)
-  if (!query.success) throw validationError(query.error)
+export default defineApiHandler(async (event) => {
+  await requireCapability(event, 'read-alert-log')
+  const query = readQuery(event, querySchema)
   const o = schema.outbox
   const rows = await useDB().select({ id: o.id, kind: o.kind, channel: o.channel, alertId: o.alertId, userId: o.userId, to: o.toAddress,
     subject: o.subject, state: o.state, attempts: o.attempts, lastError: o.lastError, nextAttemptAt: o.nextAttemptAt, sentAt: o.sentAt,
     sentBy: o.sentBy, createdAt: o.createdAt }).from(o)
-    .where(and(query.data.state ? eq(o.state, query.data.state) : undefined, query.data.kind ? eq(o.kind, query.data.kind) : undefined))
-    .orderBy(desc(o.id)).limit(query.data.limit)
+    .where(and(query.state ? eq(o.state, query.state) : undefined, query.kind ? eq(o.kind, query.kind) : undefined))
+    .orderBy(desc(o.id)).limit(query.limit)
   return { deliveries: rows }
 })

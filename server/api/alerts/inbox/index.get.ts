@@ -1,5 +1,5 @@
 // The signed-in user's alerts inbox, newest first, with the count not yet acknowledged.
-export default defineEventHandler(async (event) => {
+export default defineApiHandler(async (event) => {
   const user = await requireUser(event)
   const i = schema.alertInbox
   const a = schema.alerts

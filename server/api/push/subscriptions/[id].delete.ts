@@ -1,6 +1,6 @@
 import { idParamSchema } from '#shared/utils/schemas'
 
-export default defineEventHandler(async (event) => {
+export default defineApiHandler(async (event) => {
   const user = await requireUser(event)
   const { id } = readParams(event, idParamSchema)
   const p = schema.pushSubscriptions

@@ -17,11 +17,9 @@ const bodySchema = z.object({
 
 // Registers a browser's Push API subscription (PushSubscription.toJSON()) for the signed-in user. An endpoint belongs
 // to one user: the same browser registering again updates its keys; another user's endpoint is 409.
-export default defineEventHandler(async (event) => {
+export default defineApiHandler(async (event) => {
   const user = await requireUser(event)
-  const body = await readValidatedBody(event, bodySchema.safeParse)
-  if (!body.success) throw validationError(body.error, 'The push subscription was not saved')
-  const { endpoint, keys, label } = body.data
+  const { endpoint, keys, label } = await readBodyWith(event, bodySchema, 'The push subscription was not saved')
   const p = schema.pushSubscriptions
   const values = { p256dh: keys.p256dh, auth: keys.auth, label: label || 'Browser' }
   const taken = () => createError({

@@ -10,18 +10,17 @@ const bodySchema = limitChangeSchema.extend({
 })
 
 // An airfield's override (or one runway end's). Null for a figure means "inherit".
-export default defineEventHandler(async (event) => {
-  const user = await requireRole(event, 'safety', 'admin')
+export default defineApiHandler(async (event) => {
+  const user = await requireCapability(event, 'manage-limits')
   const { code } = readParams(event, airfieldCodeParamSchema)
-  const body = await readValidatedBody(event, bodySchema.safeParse)
-  if (!body.success) throw validationError(body.error, 'The limits were not changed')
+  const body = await readBodyWith(event, bodySchema, 'The limits were not changed')
   const airfield = await airfieldByCode(code)
   if (!airfield) throw createError({ statusCode: 404, statusMessage: `No airfield with the code ${code}` })
-  const designator = body.data.designator ?? null
+  const designator = body.designator ?? null
   if (designator) {
     const [end] = await useDB().select({ id: schema.runwayEnds.id }).from(schema.runwayEnds)
       .where(and(eq(schema.runwayEnds.airfieldId, airfield.id), eq(schema.runwayEnds.designator, designator)))
     if (!end) throw createError({ statusCode: 422, statusMessage: `${code} has no runway end ${designator}`, data: { issues: [{ field: 'designator', message: `${code} has no runway end ${designator}` }] } })
   }
-  return saveLimitSet(useDB(), user, { airfieldId: airfield.id, designator }, body.data.values, body.data.reason)
+  return saveLimitSet(useDB(), user, { airfieldId: airfield.id, designator }, body.values, body.reason)
 })

@@ -1,8 +1,8 @@
 import { idParamSchema } from '#shared/utils/schemas'
 
 // Revokes a token for good (the row stays, marked). A dispatcher revokes their own; an admin any.
-export default defineEventHandler(async (event) => {
-  const user = await requireRole(event, 'dispatcher', 'admin')
+export default defineApiHandler(async (event) => {
+  const user = await requireCapability(event, 'manage-tokens')
   const { id } = readParams(event, idParamSchema)
   const t = schema.apiTokens
   const revoked = await useDB().transaction(async (tx) => {

@@ -20,15 +20,14 @@ const querySchema = z.object({
   fileName: z.string().max(200).optional(),
 })
 
-export default defineEventHandler(async (event) => {
+export default defineApiHandler(async (event) => {
   const actor = await requireFiler(event)
   const { code } = readParams(event, airfieldCodeParamSchema)
-  const query = await getValidatedQuery(event, querySchema.safeParse)
-  if (!query.success) throw validationError(query.error)
+  const query = readQuery(event, querySchema)
   const text = await readLimitedText(event)
   const airfield = await airfieldByCode(code)
   if (!airfield) throw createError({ statusCode: 404, statusMessage: `No airfield with the code ${code}` })
-  const { format, mode, fileName, ...given } = query.data
+  const { format, mode, fileName, ...given } = query
   const queryHeader = Object.fromEntries(Object.entries(given).filter(([, v]) => v !== undefined && v !== ''))
 
   const parsed = format === 'csv'

@@ -7,21 +7,20 @@ import { airfieldByCode } from '../../../../domain/profiles/analysis'
 const paramsSchema = z.object({ code: airfieldCodeSchema, id: idSchema('runway id') })
 
 // Replaces a runway's length and both ends (the ends are edited together so the pair stays consistent).
-export default defineEventHandler(async (event) => {
-  const user = await requireRole(event, 'dispatcher', 'admin')
+export default defineApiHandler(async (event) => {
+  const user = await requireCapability(event, 'manage-airfields')
   const { code, id } = readParams(event, paramsSchema)
-  const body = await readValidatedBody(event, runwaySchema.safeParse)
-  if (!body.success) throw validationError(body.error)
+  const body = await readBodyWith(event, runwaySchema)
   const airfield = await airfieldByCode(code)
   if (!airfield) throw createError({ statusCode: 404, statusMessage: `No airfield with the code ${code}` })
-  const ends = runwayEndValues(airfield, body.data)
+  const ends = runwayEndValues(airfield, body)
   try {
     const found = await useDB().transaction(async (tx) => {
       const [runway] = await tx.select().from(schema.runways)
         .where(and(eq(schema.runways.id, id), eq(schema.runways.airfieldId, airfield.id))).for('update')
       if (!runway) return false
       const before = await tx.select().from(schema.runwayEnds).where(eq(schema.runwayEnds.runwayId, id)).orderBy(asc(schema.runwayEnds.id))
-      await tx.update(schema.runways).set({ lengthM: body.data.lengthM ?? null, updatedAt: new Date() })
+      await tx.update(schema.runways).set({ lengthM: body.lengthM ?? null, updatedAt: new Date() })
         .where(and(eq(schema.runways.id, id), eq(schema.runways.airfieldId, airfield.id)))
       // Clear the designators first so swapping them within the runway does not trip the unique index.
       for (const [i, row] of before.entries()) {

@@ -2,17 +2,16 @@ import { airfieldCodeParamSchema, runwaySchema } from '#shared/utils/airfield-sc
 import { airfieldDetail, runwayEndValues } from '../../../../domain/airfields'
 import { airfieldByCode } from '../../../../domain/profiles/analysis'
 
-export default defineEventHandler(async (event) => {
-  const user = await requireRole(event, 'dispatcher', 'admin')
+export default defineApiHandler(async (event) => {
+  const user = await requireCapability(event, 'manage-airfields')
   const { code } = readParams(event, airfieldCodeParamSchema)
-  const body = await readValidatedBody(event, runwaySchema.safeParse)
-  if (!body.success) throw validationError(body.error)
+  const body = await readBodyWith(event, runwaySchema)
   const airfield = await airfieldByCode(code)
   if (!airfield) throw createError({ statusCode: 404, statusMessage: `No airfield with the code ${code}` })
-  const ends = runwayEndValues(airfield, body.data)
+  const ends = runwayEndValues(airfield, body)
   try {
     const runway = await useDB().transaction(async (tx) => {
-      const [row] = await tx.insert(schema.runways).values({ airfieldId: airfield.id, lengthM: body.data.lengthM ?? null }).$returningId()
+      const [row] = await tx.insert(schema.runways).values({ airfieldId: airfield.id, lengthM: body.lengthM ?? null }).$returningId()
       await tx.insert(schema.runwayEnds).values(ends.map(e => ({ ...e, runwayId: row!.id })))
       await recordAudit(tx, { user }, 'runway.create', 'runway', row!.id, {
         airfieldCode: airfield.code, ends: ends.map(e => ({ designator: e.designator, trueHeadingDeg: e.trueHeadingDeg, headingSource: e.headingSource })),

@@ -1,8 +1,8 @@
 import { idParamSchema } from '#shared/utils/schemas'
 
 // Puts a failed delivery back in the queue, due now.
-export default defineEventHandler(async (event) => {
-  const user = await requireRole(event, 'safety', 'admin')
+export default defineApiHandler(async (event) => {
+  const user = await requireCapability(event, 'read-alert-log')
   const { id } = readParams(event, idParamSchema)
   const o = schema.outbox
   const [result] = await useDB().update(o).set({ state: 'queued', nextAttemptAt: new Date(), updatedAt: new Date() })

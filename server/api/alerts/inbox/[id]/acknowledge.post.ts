@@ -1,7 +1,7 @@
 import { idParamSchema } from '#shared/utils/schemas'
 
 // Acknowledges one of the signed-in user's own inbox entries (404 for anyone else's).
-export default defineEventHandler(async (event) => {
+export default defineApiHandler(async (event) => {
   const user = await requireUser(event)
   const { id } = readParams(event, idParamSchema)
   const i = schema.alertInbox
