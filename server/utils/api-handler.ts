@@ -91,7 +91,10 @@ export async function readBodyWith<T>(event: H3Event, schema: Schema<T>, summary
   try {
     body = await readBody(event)
   }
-  catch {
+  catch (err) {
+    // The request guard's refusals (400 cut short, 413 too large, 415 wrong type, 422 too deep) pass as they are;
+    // only h3's own "Invalid JSON body" becomes the contract's 422.
+    if (isError(err) && !(err.statusCode === 400 && /invalid json/i.test(err.message))) throw err
     throw invalid([{ field: '(body)', message: 'The body is not valid JSON' }], 'The body is not valid JSON')
   }
   return parseWith(schema, body, '(body)', summary)

@@ -1,10 +1,13 @@
 import { z } from 'zod'
+import { M_PER_FT } from '../units'
 
 // Airfields and runways: shared by the API and the forms.
 
 export const AIRFIELD_CODE_RE = /^[A-Za-z]{4}$/
-export const airfieldCodeSchema = z.string({ required_error: 'Code is required' }).trim()
-  .regex(AIRFIELD_CODE_RE, 'Code must be four letters, e.g. XVAL').transform(c => c.toUpperCase())
+/** The one airfield code rule (four letters, any case, answered upper case), labelled in the words of its form. */
+export const airfieldCodeField = (label = 'Code') => z.string({ required_error: `${label} is required` }).trim()
+  .regex(AIRFIELD_CODE_RE, `${label} must be four letters, e.g. XVAL`).transform(c => c.toUpperCase())
+export const airfieldCodeSchema = airfieldCodeField('Code')
 export const airfieldCodeParamSchema = z.object({ code: airfieldCodeSchema })
 
 const deg = (label: string, limit: number) => z.number({ required_error: `${label} is required`, invalid_type_error: `${label} must be a number` })
@@ -25,7 +28,7 @@ const airfieldShape = {
 type AirfieldFields = { elevation?: number, elevationUnit?: 'ft' | 'm', magVarOverrideDeg?: number | null, magVarOverrideReason?: string | null }
 function checkAirfield(a: AirfieldFields, ctx: z.RefinementCtx) {
   if (a.elevation !== undefined && a.elevationUnit !== undefined) {
-    const m = a.elevationUnit === 'ft' ? a.elevation * 0.3048 : a.elevation
+    const m = a.elevationUnit === 'ft' ? a.elevation * M_PER_FT : a.elevation
     if (m < -500 || m > 9000) ctx.addIssue({ code: z.ZodIssueCode.custom, path: ['elevation'], message: 'Elevation must be from -500 to 9000 m (-1640 to 29,527 ft)' })
   }
   if (a.magVarOverrideDeg != null && !a.magVarOverrideReason?.trim()) {

@@ -1,9 +1,11 @@
 // How figures are shown to a reader: conversions for display only (the engine works in kt and metres).
+import { M_PER_FT, MPS_PER_KT } from '../units'
 
-/** Exact: 1 kt = 1852/3600 m/s (international nautical mile of 1852 m). */
-export const MPS_PER_KT_EXACT = 1852 / 3600
-/** Exact: 1 ft = 0.3048 m (international yard and pound, 1959). */
-export const M_PER_FT_EXACT = 0.3048
+/** Exact: 1 kt = 1852/3600 m/s (international nautical mile of 1852 m); the factor lives in shared/units.ts. */
+export const MPS_PER_KT_EXACT = MPS_PER_KT
+
+/** Exact: 1 ft = 0.3048 m (international yard and pound, 1959); the factor lives in shared/units.ts. */
+export const M_PER_FT_EXACT = M_PER_FT
 
 export type SpeedUnit = 'kt' | 'mps'
 export type HeightUnit = 'ft' | 'm'

@@ -1,4 +1,6 @@
 import { z } from 'zod'
+import { M_PER_FT, MPS_PER_KT } from '../units'
+import { airfieldCodeField } from './airfield-schema'
 import { instantSchema, pageSchema, pageSizeSchema } from './input-schemas'
 
 // The public profile JSON shape (README "Profile JSON"), shared by the API, the import parsers and the entry form.
@@ -24,7 +26,6 @@ export const PROFILE_MAX_BYTES = 2 * 1024 * 1024
 // A profile describes hours, not weeks: a longer validity is almost surely a typing slip.
 export const PROFILE_MAX_VALIDITY_H = 72
 export const PROFILE_MAX_SPEED_KT = 250
-const MPS_PER_KT = 1852 / 3600
 const MAX_HEIGHT_M = 29000
 
 const num = (label: string) => z.number({ required_error: `${label} is required`, invalid_type_error: `${label} must be a number` }).finite(`${label} must be a finite number`)
@@ -36,7 +37,7 @@ export const LEVEL_GUST_KEYS = ['gustKt', 'gustMps'] as const
 /** One level: exactly one of heightM | heightFt | pressureHpa, directionDeg, exactly one of speedKt | speedMps, an optional gust. */
 export const profileLevelSchema = z.object({
   heightM: num('Height').min(-500, 'Height must be -500 m or more').max(MAX_HEIGHT_M, `Height must be at most ${MAX_HEIGHT_M} m`).optional(),
-  heightFt: num('Height').min(-1640, 'Height must be -1640 ft or more').max(MAX_HEIGHT_M / 0.3048, 'Height must be at most 95,000 ft').optional(),
+  heightFt: num('Height').min(-1640, 'Height must be -1640 ft or more').max(MAX_HEIGHT_M / M_PER_FT, 'Height must be at most 95,000 ft').optional(),
   pressureHpa: num('Pressure').gt(0, 'Pressure must be above 0 hPa').max(1100, 'Pressure must be at most 1100 hPa').optional(),
   directionDeg: num('Direction').min(0, 'Direction must be 0 to 360°').max(360, 'Direction must be 0 to 360°'),
   speedKt: num('Speed').min(0, 'Speed must be 0 or more').max(PROFILE_MAX_SPEED_KT, `Speed must be at most ${PROFILE_MAX_SPEED_KT} kt`).optional(),
@@ -46,9 +47,9 @@ export const profileLevelSchema = z.object({
 }).strict().superRefine((level, ctx) => {
   const given = (keys: readonly (keyof typeof level)[]) => keys.filter(k => level[k] !== undefined)
   const heights = given(LEVEL_HEIGHT_KEYS)
-  if (heights.length !== 1) ctx.addIssue({ code: z.ZodIssueCode.custom, path: [heights[1] ?? 'heightM'], message: heights.length ? `Give one height, not ${heights.join(' and ')}` : 'Height is required (heightM, heightFt or pressureHpa)' })
+  if (heights.length !== 1) ctx.addIssue({ code: z.ZodIssueCode.custom, path: [heights[1] ?? 'heightM'], message: heights.length ? 'Give one height only: metres, feet or a pressure level' : 'Height is required' })
   const speeds = given(LEVEL_SPEED_KEYS)
-  if (speeds.length !== 1) ctx.addIssue({ code: z.ZodIssueCode.custom, path: [speeds[1] ?? 'speedKt'], message: speeds.length ? `Give one speed, not ${speeds.join(' and ')}` : 'Speed is required (speedKt or speedMps)' })
+  if (speeds.length !== 1) ctx.addIssue({ code: z.ZodIssueCode.custom, path: [speeds[1] ?? 'speedKt'], message: speeds.length ? 'Give one speed only: knots or metres per second' : 'Speed is required' })
   const gusts = given(LEVEL_GUST_KEYS)
   if (gusts.length > 1) ctx.addIssue({ code: z.ZodIssueCode.custom, path: [gusts[1]!], message: 'Give at most one gust' })
   const speedKt = level.speedKt ?? (level.speedMps === undefined ? undefined : level.speedMps / MPS_PER_KT)
@@ -60,7 +61,7 @@ export type ProfileLevelInput = z.infer<typeof profileLevelSchema>
 // A real date and time with a real offset, in 1970 to 2100 (shared/utils/input-schemas.ts).
 const utcInstant = (label: string) => instantSchema(label)
 
-export const profileLevelsSchema = z.array(profileLevelSchema, { required_error: 'levels is required' })
+export const profileLevelsSchema = z.array(profileLevelSchema, { required_error: 'Levels are required' })
   .min(2, 'At least two levels are needed').max(PROFILE_MAX_LEVELS, `At most ${PROFILE_MAX_LEVELS} levels`)
 
 const profileHeaderShape = {
@@ -89,7 +90,7 @@ export type ProfileInput = z.infer<typeof profileInputSchema>
 export const windPreviewSchema = z.object({
   levels: profileLevelsSchema,
   heightReference: z.enum(HEIGHT_REFERENCES, { errorMap: () => ({ message: 'Height reference must be AGL or MSL' }) }),
-  airfield: z.string().trim().regex(/^[A-Za-z]{4}$/, 'Airfield must be a four-letter code').optional(),
+  airfield: airfieldCodeField('Airfield').optional(),
   runwayEnds: z.array(z.object({
     designator: z.string().trim().regex(/^(0[1-9]|[12]\d|3[0-6])[LCR]?$/, 'Designator must be 01 to 36 with an optional L, C or R'),
     trueHeadingDeg: num('True heading').min(0).max(360),

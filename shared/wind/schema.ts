@@ -1,6 +1,6 @@
 import { z } from 'zod'
 import { MAX_HEIGHT_AGL_M, MAX_LEVELS, MAX_RUNWAY_ENDS, MAX_SPEED_KT } from './validate'
-import { KMH_PER_KT, MPS_PER_KT } from '../units'
+import { KMH_PER_KT, M_PER_FT, MPS_PER_KT } from '../units'
 import { designatorHeadingDeg } from './runway'
 
 /*
@@ -16,7 +16,7 @@ const GUST_KEYS = ['gustKt', 'gustMps', 'gustKmh'] as const
 
 export const levelInputSchema = z.object({
   heightM: z.number().finite().max(MAX_HEIGHT_AGL_M + 9000).optional(),
-  heightFt: z.number().finite().max((MAX_HEIGHT_AGL_M + 9000) / 0.3048).optional(),
+  heightFt: z.number().finite().max((MAX_HEIGHT_AGL_M + 9000) / M_PER_FT).optional(),
   pressureHpa: z.number().finite().positive().max(1100).optional(),
   directionDeg: z.number().finite().min(0).max(360),
   speedKt: nonNegative.max(speedKtMax).optional(),

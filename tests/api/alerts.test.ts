@@ -19,9 +19,9 @@ async function deliveriesOf(alertId: number) {
 /** A test airfield where only runway 18's crosswind can cross: crosswind 18 kt for the field, 25 kt on 36, tailwind 30 kt. */
 async function crosswindField() {
   const code = await createTestAirfield({ 18: 180, 36: 360 })
-  const a = await safety.put(`/api/thresholds/airfields/${code}`, { values: { maxCrosswindKt: 18, maxTailwindKt: 30 }, reason: 'Test field: crosswind limit for a light type' })
+  const a = await safety.put(`/api/limits/airfields/${code}`, { values: { maxCrosswindKt: 18, maxTailwindKt: 30 }, reason: 'Test field: crosswind limit for a light type' })
   expect(a.status).toBe(200)
-  const b = await safety.put(`/api/thresholds/airfields/${code}`, { designator: '36', values: { maxCrosswindKt: 25 }, reason: 'Test field: runway 36 has the better surface' })
+  const b = await safety.put(`/api/limits/airfields/${code}`, { designator: '36', values: { maxCrosswindKt: 25 }, reason: 'Test field: runway 36 has the better surface' })
   expect(b.status).toBe(200)
   return code
 }
@@ -192,33 +192,33 @@ describe('alerts: evaluation, e-mail and push', () => {
 describe('thresholds', () => {
   it('only safety officers and admins change them (401 signed out, 403 others), with ranges and a reason', async () => {
     const body = { values: { maxCrosswindKt: 22 }, reason: 'Probe change' }
-    expect((await new ApiClient().put('/api/thresholds/organisation', body)).status).toBe(401)
+    expect((await new ApiClient().put('/api/limits/organisation', body)).status).toBe(401)
     for (const role of ['pilot', 'dispatcher'] as const) {
-      const res = await (await signedIn(role)).put('/api/thresholds/organisation', { nonsense: true })
+      const res = await (await signedIn(role)).put('/api/limits/organisation', { nonsense: true })
       expect(res.status).toBe(403)
     }
     const code = await createTestAirfield({ '09': 90, '27': 270 })
-    expect((await dispatcher.put(`/api/thresholds/airfields/${code}`, body)).status).toBe(403)
+    expect((await dispatcher.put(`/api/limits/airfields/${code}`, body)).status).toBe(403)
 
-    const tooHigh = await safety.put(`/api/thresholds/airfields/${code}`, { values: { maxCrosswindKt: 75, nearLimitMarginPct: -1 }, reason: 'x' })
+    const tooHigh = await safety.put(`/api/limits/airfields/${code}`, { values: { maxCrosswindKt: 75, nearLimitMarginPct: -1 }, reason: 'x' })
     expect(tooHigh.status).toBe(422)
     const messages = tooHigh.body.data.issues.map((i: { field: string, message: string }) => `${i.field}: ${i.message}`)
     expect(messages).toContain('values.maxCrosswindKt: Maximum crosswind must be at most 60 kt')
     expect(messages).toContain('values.nearLimitMarginPct: Near-limit margin must be at least 0 %')
     expect(messages.some((m: string) => m.startsWith('reason:'))).toBe(true)
 
-    const badEnd = await safety.put(`/api/thresholds/airfields/${code}`, { designator: '18', values: { maxCrosswindKt: 15 }, reason: 'Runway 18 probe' })
+    const badEnd = await safety.put(`/api/limits/airfields/${code}`, { designator: '18', values: { maxCrosswindKt: 15 }, reason: 'Runway 18 probe' })
     expect(badEnd.status).toBe(422)
 
-    const ok = await admin.put(`/api/thresholds/airfields/${code}`, { values: { maxCrosswindKt: 22 }, reason: 'Admin probe change' })
+    const ok = await admin.put(`/api/limits/airfields/${code}`, { values: { maxCrosswindKt: 22 }, reason: 'Admin probe change' })
     expect(ok.status).toBe(200)
-    const ok2 = await safety.put(`/api/thresholds/airfields/${code}`, { values: { maxCrosswindKt: 21 }, reason: 'Safety probe change' })
+    const ok2 = await safety.put(`/api/limits/airfields/${code}`, { values: { maxCrosswindKt: 21 }, reason: 'Safety probe change' })
     expect(ok2.status).toBe(200)
-    const history = (await safety.get(`/api/thresholds/history?airfield=${code}`)).body.changes
+    const history = (await safety.get(`/api/limits/history?airfield=${code}`)).body.changes
     expect(history).toHaveLength(2)
     expect(history[0]).toMatchObject({ reason: 'Safety probe change', changedBy: { email: 'safety@veerline.example' }, oldValues: { maxCrosswindKt: 22 }, newValues: { maxCrosswindKt: 21 } })
     expect(history[1]).toMatchObject({ oldValues: null, newValues: { maxCrosswindKt: 22, maxTailwindKt: null } })
-    const all = (await (await signedIn('pilot')).get('/api/thresholds')).body
+    const all = (await (await signedIn('pilot')).get('/api/limits')).body
     const field = all.airfields.find((a: { code: string }) => a.code === code)
     expect(field.effective.maxCrosswindKt).toBe(21)
     expect(field.source.maxCrosswindKt).toBe('airfield')

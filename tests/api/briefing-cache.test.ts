@@ -144,7 +144,7 @@ describe('the cache never serves a stale briefing after an edit on another insta
     const { code, pilot } = await fieldWithProfile()
     const before = (await pilot.get(`/api/airfields/${code}/briefing`)).body.briefing
     expect(before.limits.values.maxCrosswindKt).not.toBe(7)
-    const change = await viaSecond.put(`/api/thresholds/airfields/${code}`, { values: { maxCrosswindKt: 7 }, reason: 'Cache test: a tight crosswind limit' })
+    const change = await viaSecond.put(`/api/limits/airfields/${code}`, { values: { maxCrosswindKt: 7 }, reason: 'Cache test: a tight crosswind limit' })
     expect(change.status).toBeLessThan(300)
     const after = (await pilot.get(`/api/airfields/${code}/briefing`)).body.briefing
     expect(after.limits.values.maxCrosswindKt).toBe(7)

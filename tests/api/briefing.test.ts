@@ -143,11 +143,11 @@ describe('GET /api/airfields/{code}/briefing', () => {
 })
 
 describe('GET /api/airfields/{code}/trend', () => {
-  it('charts the day: strongest shear per profile equals the briefing, thresholds are the limits', async () => {
+  it('charts the day: strongest shear per profile equals the briefing, its limits are the effective ones', async () => {
     const res = await pilot.get(`/api/airfields/XHGH/trend?date=${await demoDay(pilot)}`)
     expect(res.status).toBe(200)
-    expect(res.body.thresholds.maxLayerShearKtPer100ft).toBe(DEFAULT_LIMITS.maxLayerShearKtPer100ft)
-    expect(res.body.thresholds.perEnd.map((p: { designator: string }) => p.designator)).toEqual(['11', '29'])
+    expect(res.body.limits.maxLayerShearKtPer100ft).toBe(DEFAULT_LIMITS.maxLayerShearKtPer100ft)
+    expect(res.body.limits.perEnd.map((p: { designator: string }) => p.designator)).toEqual(['11', '29'])
     for (const point of res.body.points.slice(0, 3)) {
       const b = (await pilot.get(`/api/airfields/XHGH/briefing?profile=${point.profileId}&precision=full`)).body.briefing
       expect(point.strongestShearKtPer100ft).toBe(b.shear.strongestLayer.shearKtPer100ft)

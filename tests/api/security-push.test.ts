@@ -98,7 +98,7 @@ describe('push endpoints: checked again when sending', () => {
   it('a stored endpoint that points at loopback is not sent to; only our short reason is kept', async () => {
     // As if registered before these rules: put straight into the database.
     const code = await createTestAirfield({ 18: 180, 36: 360 })
-    expect((await safety.put(`/api/thresholds/airfields/${code}`, { values: { maxCrosswindKt: 10 }, reason: 'Test field: low crosswind limit' })).status).toBe(200)
+    expect((await safety.put(`/api/limits/airfields/${code}`, { values: { maxCrosswindKt: 10 }, reason: 'Test field: low crosswind limit' })).status).toBe(200)
     const pilot = await newUser(admin, 'pilot', 'ssrf')
     expect((await pilot.client.put(`/api/subscriptions/${code}`, { email: false, push: true })).status).toBe(200)
     for (const endpoint of [targetUrl(), 'https://localhost/push/x']) {

@@ -16,8 +16,8 @@ describe('limits and alerts in the browser', () => {
     // Runway 18/36, wind 220° at 30 kt: 19.28 kt crosswind (FAA crosswind chart worked example), within the default 20 kt.
     const code = await createTestAirfield({ 18: 180, 36: 360 }, 'Browser alert field')
     const safetyApi = await signedIn('safety')
-    await safetyApi.put(`/api/thresholds/airfields/${code}`, { values: { maxTailwindKt: 30 }, reason: 'Test field: tailwind out of the way' })
-    await safetyApi.put(`/api/thresholds/airfields/${code}`, { designator: '36', values: { maxCrosswindKt: 25 }, reason: 'Test field: runway 36 stays clear' })
+    await safetyApi.put(`/api/limits/airfields/${code}`, { values: { maxTailwindKt: 30 }, reason: 'Test field: tailwind out of the way' })
+    await safetyApi.put(`/api/limits/airfields/${code}`, { designator: '36', values: { maxCrosswindKt: 25 }, reason: 'Test field: runway 36 stays clear' })
     const pilotApi = await signedIn('pilot')
     expect((await pilotApi.put(`/api/subscriptions/${code}`, { email: true, push: false })).status).toBe(200)
     const filed = await (await signedIn('dispatcher')).post(`/api/airfields/${code}/profiles`, windProfile(220, 30))

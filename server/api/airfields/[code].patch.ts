@@ -1,4 +1,5 @@
 import { airfieldCodeParamSchema, airfieldUpdateSchema } from '#shared/utils/airfield-schema'
+import { M_PER_FT } from '#shared/units'
 import { airfieldDetail } from '../../domain/airfields'
 
 export default defineApiHandler(async (event) => {
@@ -7,14 +8,14 @@ export default defineApiHandler(async (event) => {
   const body = await readBodyWith(event, airfieldUpdateSchema)
   const { elevation, ...rest } = body
   const change: Record<string, unknown> = { ...rest }
-  if (elevation !== undefined) change.elevationM = rest.elevationUnit === 'ft' ? elevation * 0.3048 : elevation
+  if (elevation !== undefined) change.elevationM = rest.elevationUnit === 'ft' ? elevation * M_PER_FT : elevation
   if (rest.magVarOverrideDeg === null) change.magVarOverrideReason = null
 
   const airfield = await useDB().transaction(async (tx) => {
     const [before] = await tx.select().from(schema.airfields).where(eq(schema.airfields.code, code)).for('update')
     if (!before) return null
     if (change.magVarOverrideDeg != null && !(change.magVarOverrideReason ?? before.magVarOverrideReason)) {
-      throw createError({ statusCode: 422, statusMessage: 'Give a reason for overriding the magnetic variation', data: { issues: [{ field: 'magVarOverrideReason', message: 'Give a reason for overriding the magnetic variation' }] } })
+      throw invalid([{ field: 'magVarOverrideReason', message: 'Give a reason for overriding the magnetic variation' }], 'Give a reason for overriding the magnetic variation')
     }
     await tx.update(schema.airfields).set({ ...change, updatedAt: new Date() }).where(and(eq(schema.airfields.id, before.id), eq(schema.airfields.code, code)))
     const [after] = await tx.select().from(schema.airfields).where(eq(schema.airfields.id, before.id))
@@ -24,6 +25,6 @@ export default defineApiHandler(async (event) => {
     })
     return airfieldDetail(after!, tx)
   })
-  if (!airfield) throw createError({ statusCode: 404, statusMessage: `No airfield with the code ${code}` })
+  if (!airfield) throw notFound(`No airfield with the code ${code}`)
   return { airfield }
 })

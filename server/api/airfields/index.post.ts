@@ -1,6 +1,7 @@
+import { M_PER_FT } from '#shared/units'
 import { airfieldCreateSchema } from '#shared/utils/airfield-schema'
 import { airfieldDetail } from '../../domain/airfields'
-import { airfieldByCode } from '../../domain/profiles/analysis'
+import { findAirfield } from '../../domain/airfields/lookup'
 
 export default defineApiHandler(async (event) => {
   const user = await requireCapability(event, 'manage-airfields')
@@ -8,13 +9,13 @@ export default defineApiHandler(async (event) => {
   const { elevation, ...rest } = body
   const values = {
     ...rest,
-    elevationM: rest.elevationUnit === 'ft' ? elevation * 0.3048 : elevation,
+    elevationM: rest.elevationUnit === 'ft' ? elevation * M_PER_FT : elevation,
     magVarOverrideDeg: rest.magVarOverrideDeg ?? null,
     magVarOverrideReason: rest.magVarOverrideDeg == null ? null : (rest.magVarOverrideReason ?? null),
     notes: rest.notes ?? null,
   }
   const duplicate = () => createError({ statusCode: 409, statusMessage: `An airfield with the code ${values.code} already exists`, data: { issues: [{ field: 'code', message: 'already in use' }] } })
-  if (await airfieldByCode(values.code)) throw duplicate()
+  if (await findAirfield(values.code)) throw duplicate()
   try {
     const airfield = await useDB().transaction(async (tx) => {
       const [row] = await tx.insert(schema.airfields).values(values).$returningId()

@@ -1,9 +1,10 @@
+import { airfieldCodeField } from '#shared/utils/airfield-schema'
 import { z } from 'zod'
 import { decimalIntSchema } from '#shared/utils/input-schemas'
-import { airfieldByCode } from '../../domain/profiles/analysis'
+import { loadAirfield } from '../../domain/airfields/lookup'
 
 const querySchema = z.object({
-  airfield: z.string().trim().regex(/^[A-Za-z]{4}$/, 'airfield must be a four-letter code').optional(),
+  airfield: airfieldCodeField('Airfield').optional(),
   state: z.enum(['active', 'cleared', 'superseded', 'expired']).optional(),
   limit: decimalIntSchema('limit', 1, 500).default(100),
 })
@@ -13,8 +14,7 @@ export default defineApiHandler(async (event) => {
   await requireCapability(event, 'read-alert-log')
   const query = readQuery(event, querySchema)
   const a = schema.alerts
-  const airfield = query.airfield ? await airfieldByCode(query.airfield) : null
-  if (query.airfield && !airfield) throw createError({ statusCode: 404, statusMessage: `No airfield with the code ${query.airfield}` })
+  const airfield = query.airfield ? await loadAirfield(query.airfield) : null
   const rows = await useDB().select({ alert: a, airfieldCode: schema.airfields.code, profile: { validFrom: schema.profiles.validFrom, validTo: schema.profiles.validTo } })
     .from(a)
     .innerJoin(schema.airfields, eq(schema.airfields.id, a.airfieldId))

@@ -1,6 +1,6 @@
 import { receiptQuerySchema } from '#shared/utils/briefing-schemas'
 import { listReceipts } from '../../domain/briefings/receipts'
-import { airfieldByCode } from '../../domain/profiles/analysis'
+import { loadAirfield } from '../../domain/airfields/lookup'
 
 // Who has read which briefing version. Dispatchers, safety officers and admins see everyone's; a pilot sees their own.
 export default defineApiHandler(async (event) => {
@@ -8,8 +8,7 @@ export default defineApiHandler(async (event) => {
   const query = readQuery(event, receiptQuerySchema)
   let airfieldId: number | undefined
   if (query.airfield) {
-    const airfield = await airfieldByCode(query.airfield)
-    if (!airfield) throw createError({ statusCode: 404, statusMessage: `No airfield with the code ${query.airfield}` })
+    const airfield = await loadAirfield(query.airfield)
     airfieldId = airfield.id
   }
   const receipts = await listReceipts({

@@ -1,6 +1,6 @@
 import { z } from 'zod'
 import { airfieldCodeParamSchema } from '#shared/utils/airfield-schema'
-import { airfieldByCode } from '../../domain/profiles/analysis'
+import { loadAirfield } from '../../domain/airfields/lookup'
 
 const bodySchema = z.object({
   email: z.boolean({ required_error: 'email is required (true or false)' }),
@@ -12,8 +12,7 @@ export default defineApiHandler(async (event) => {
   const user = await requireUser(event)
   const { code } = readParams(event, airfieldCodeParamSchema)
   const body = await readBodyWith(event, bodySchema)
-  const airfield = await airfieldByCode(code)
-  if (!airfield) throw createError({ statusCode: 404, statusMessage: `No airfield with the code ${code}` })
+  const airfield = await loadAirfield(code)
   await useDB().insert(schema.alertSubscriptions).values({ userId: user.id, airfieldId: airfield.id, ...body })
     .onDuplicateKeyUpdate({ set: body })
   return { airfieldCode: airfield.code, ...body }

@@ -1,7 +1,8 @@
 import { windPreviewSchema } from '#shared/utils/profile-schema'
 import { analyseProfile, WindValidationError } from '../../../shared/wind'
 import { declinationToday } from '../../domain/airfields'
-import { airfieldByCode, runwayEndInputsOf } from '../../domain/profiles/analysis'
+import { runwayEndInputsOf } from '../../domain/profiles/analysis'
+import { loadAirfield } from '../../domain/airfields/lookup'
 import { profileIssuesError, withLevelPlaces, zodProfileError } from '../../domain/profiles/filing'
 
 // Runs the wind engine on levels without saving anything: for the entry form's live preview and for other systems.
@@ -15,8 +16,7 @@ export default defineApiHandler(async (event) => {
   let input
   let declination = null
   if (code) {
-    const airfield = await airfieldByCode(code)
-    if (!airfield) throw createError({ statusCode: 404, statusMessage: `No airfield with the code ${code}` })
+    const airfield = await loadAirfield(code)
     const ends = await useDB().select().from(schema.runwayEnds).where(eq(schema.runwayEnds.airfieldId, airfield.id))
     declination = declinationToday(airfield)
     input = { levels, heightReference, elevationM: airfield.elevationM, runwayEnds: runwayEndInputsOf(ends, declination?.declinationDeg ?? null) }

@@ -4,8 +4,8 @@ import { designatorMismatch, magneticFromTrue, runwayTrueBearingDeg, WindValidat
 import { airfieldDeclination } from '../profiles/analysis'
 import { and, asc, eq, gt, lte, schema, useDB } from '../../utils/db'
 import type { DB, Tx } from '../../utils/db'
+import { M_PER_FT } from '../../../shared/units'
 
-const M_PER_FT = 0.3048
 // Thresholds further than this from the airfield's reference point are surely mistyped.
 export const THRESHOLD_MAX_DISTANCE_KM = 15
 

@@ -23,7 +23,7 @@ export async function saveLimitSet(db: DB, user: User, target: { airfieldId: num
       scopeKey, airfieldId: target.airfieldId, designator: target.designator, changedByUserId: user.id, changedAt: now,
       reason, oldValues, newValues,
     }).$returningId()
-    await recordAudit(tx, { user }, 'thresholds.change', 'threshold_set', scopeKey, { reason, oldValues, newValues })
+    await recordAudit(tx, { user }, 'limits.change', 'threshold_set', scopeKey, { reason, oldValues, newValues })
 
     // The organisation set reaches every airfield with a profile in force; an override only its own.
     const p = schema.profiles

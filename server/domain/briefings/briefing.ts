@@ -3,12 +3,13 @@
  * how it stands against the limits, and the runway ends ranked by suitability.
  * `assembleBriefing` and `rankRunwayEnds` are pure (tests call them directly); `loadBriefing` reads the database.
  */
-import { createError } from 'h3'
 import type { Airfield, Profile, RunwayEnd } from '../../db/schema'
 import { runwayComponents, uvToWind, GRID_TOP_M, type GridPoint, type ProfileAnalysis, type RunwayEndAnalysis } from '../../../shared/wind'
 import { evaluateLimits, type LimitCheck, type Limits } from '../../../shared/limits'
 import { levelInputsOf, runwayEndInputsOf, type StoredProfileAnalysis } from '../profiles/analysis'
 import { eq, schema, useDB } from '../../utils/db'
+import { M_PER_FT } from '../../../shared/units'
+import { loadAirfield } from '../airfields/lookup'
 import type { effectiveLimits } from '../alerts/limits'
 import { VEERLINE_CAUTION } from '../../../shared/utils/caution'
 
@@ -78,8 +79,6 @@ export function rankRunwayEnds(ends: Pick<RunwayEndAnalysis, 'designator' | 'sur
   return rows.map((r, i) => ({ rank: i + 1, ...r }))
 }
 
-const FT_M = 0.3048
-
 /**
  * Wind and components every 100 ft from the ground to 600 m, interpolated linearly in u and v between
  * the engine's grid points (the grid is itself linear in u and v between the filed levels).
@@ -89,8 +88,8 @@ export function feetSteps(grid: GridPoint[], ends: Pick<RunwayEndAnalysis, 'desi
   const rows = []
   const low = grid[0]!.heightAglM
   const high = Math.min(grid[grid.length - 1]!.heightAglM, GRID_TOP_M)
-  for (let ft = 0; ft * FT_M <= high + 1e-9; ft += 100) {
-    const h = ft * FT_M
+  for (let ft = 0; ft * M_PER_FT <= high + 1e-9; ft += 100) {
+    const h = ft * M_PER_FT
     if (h < low - 1e-9) continue
     const j = Math.max(1, grid.findIndex(g => g.heightAglM >= h - 1e-9))
     const a = grid[j - 1]!
@@ -110,7 +109,11 @@ export function feetSteps(grid: GridPoint[], ends: Pick<RunwayEndAnalysis, 'desi
   return rows
 }
 
-function publicProfile(p: Profile, now: Date) {
+/** The profile as a briefing shows it: the one view, used by the full briefing and the cached one alike. */
+export function publicProfileOf(
+  p: Pick<Profile, 'id' | 'source' | 'validFrom' | 'validTo' | 'createdAt' | 'heightReference' | 'status' | 'supersededById' | 'withdrawnReason' | 'notes'>,
+  now: Date,
+) {
   const status = profileStatus(p, now)
   return {
     id: p.id,
@@ -162,7 +165,7 @@ export function assembleBriefing(stored: StoredProfileAnalysis, limitSet: Briefi
     at: at.toISOString(),
     generatedAt: now.toISOString(),
     airfield: publicAirfield(airfield, runwayEnds),
-    profile: publicProfile(profile, now),
+    profile: publicProfileOf(profile, now),
     declination: { declinationDeg: declination.declinationDeg, source: declination.source, reason: declination.reason,
       date: declination.date.toISOString() },
     limits: { values: limitSet.limits, source: limitSet.source },
@@ -194,8 +197,7 @@ export type Briefing = ReturnType<typeof assembleBriefing>
 
 export async function loadAirfieldWithEnds(code: string) {
   const db = useDB()
-  const [airfield] = await db.select().from(schema.airfields).where(eq(schema.airfields.code, code.toUpperCase()))
-  if (!airfield) throw createError({ statusCode: 404, statusMessage: `No airfield with the code ${code.toUpperCase()}` })
+  const airfield = await loadAirfield(code, db)
   const ends = await db.select().from(schema.runwayEnds).where(eq(schema.runwayEnds.airfieldId, airfield.id))
   return { airfield, ends }
 }

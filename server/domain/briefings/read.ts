@@ -8,7 +8,7 @@ import { createHash } from 'node:crypto'
 import type { Airfield, Profile, RunwayEnd, ThresholdSet } from '../../db/schema'
 import { asc, inArray, schema, usePool, useDB } from '../../utils/db'
 import { analyseStored } from '../profiles/analysis'
-import { assembleBriefing, profileStatus, publicAirfield, rankRunwayEnds, STATUS_WORDS, type Briefing } from './briefing'
+import { assembleBriefing, publicAirfield, publicProfileOf, rankRunwayEnds, type Briefing } from './briefing'
 import { evaluateLimits } from '../../../shared/limits'
 import { limitSetFromRows } from '../alerts/limits'
 import { VEERLINE_CAUTION } from '../../../shared/utils/caution'
@@ -165,24 +165,6 @@ const AIRFIELD_COLUMNS = `a.id AS a_id, a.code AS a_code, a.name AS a_name, a.la
   a.longitude_deg AS a_longitude_deg, a.elevation_m AS a_elevation_m, a.elevation_unit AS a_elevation_unit,
   a.mag_var_override_deg AS a_mag_var_override_deg, a.mag_var_override_reason AS a_mag_var_override_reason,
   a.notes AS a_notes, a.created_at AS a_created_at, a.updated_at AS a_updated_at`
-
-export function publicProfileOf(p: ProfileHead, now: Date) {
-  const status = profileStatus(p, now)
-  return {
-    id: p.id,
-    source: p.source,
-    validFrom: p.validFrom.toISOString(),
-    validTo: p.validTo.toISOString(),
-    filedAt: p.createdAt.toISOString(),
-    heightReference: p.heightReference,
-    ageMinutes: Math.round((now.getTime() - p.validFrom.getTime()) / 60_000),
-    status,
-    statusWords: STATUS_WORDS[status],
-    supersededById: p.supersededById,
-    withdrawnReason: p.withdrawnReason,
-    notes: p.notes,
-  }
-}
 
 export type BriefingView = ReturnType<typeof briefingView>
 

@@ -57,7 +57,7 @@ export async function loadTrend(airfield: Airfield, ends: RunwayEnd[], date: str
     airfield: publicAirfield(airfield, ends),
     date: day.toISOString().slice(0, 10),
     designators,
-    thresholds: {
+    limits: {
       source: limitSet.source,
       maxLayerShearKtPer100ft: limitSet.limits.maxLayerShearKtPer100ft,
       perEnd: designators.map(d => ({ designator: d, maxCrosswindKt: limitSet.limitsFor(d).maxCrosswindKt,

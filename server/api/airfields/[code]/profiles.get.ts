@@ -1,6 +1,6 @@
 import { airfieldCodeParamSchema } from '#shared/utils/airfield-schema'
 import { profileListQuerySchema } from '#shared/utils/profile-schema'
-import { airfieldByCode } from '../../../domain/profiles/analysis'
+import { loadAirfield } from '../../../domain/airfields/lookup'
 import { publicProfile } from '../../../domain/profiles/filing'
 
 // The profiles of one airfield: filtered by a time range (validity overlapping it) and source, sorted, paged.
@@ -9,8 +9,7 @@ export default defineApiHandler(async (event) => {
   const { code } = readParams(event, airfieldCodeParamSchema)
   const query = readQuery(event, profileListQuerySchema)
   const { from, to, source, status, sort, order, page, pageSize } = query
-  const airfield = await airfieldByCode(code)
-  if (!airfield) throw createError({ statusCode: 404, statusMessage: `No airfield with the code ${code}` })
+  const airfield = await loadAirfield(code)
   const p = schema.profiles
   const where = and(
     eq(p.airfieldId, airfield.id),

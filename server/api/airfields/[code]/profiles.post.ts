@@ -1,6 +1,6 @@
 import { z } from 'zod'
 import { airfieldCodeParamSchema } from '#shared/utils/airfield-schema'
-import { airfieldByCode } from '../../../domain/profiles/analysis'
+import { loadAirfield } from '../../../domain/airfields/lookup'
 import { fileProfile } from '../../../domain/profiles/filing'
 
 // How a person entered it, for showing it back; a feed's filing is always 'api'.
@@ -21,8 +21,7 @@ export default defineApiHandler(async (event) => {
       return first.body
     }
   }
-  const airfield = await airfieldByCode(code)
-  if (!airfield) throw createError({ statusCode: 404, statusMessage: `No airfield with the code ${code}` })
+  const airfield = await loadAirfield(code)
 
   try {
     const answer = await useDB().transaction(async (tx) => {

@@ -1,6 +1,7 @@
 // Coded reports pasted by a dispatcher: each line a METAR/SPECI (surface wind) or a TAF (WShhh/dddffKT groups).
 import { parseCodedReport, WindValidationError, type LevelInput } from '../../../../shared/wind'
 import type { ImportIssue } from './csv'
+import { M_PER_FT } from '../../../../shared/units'
 
 export type CodedLevels = {
   levels: LevelInput[]
@@ -9,7 +10,7 @@ export type CodedLevels = {
   issues: ImportIssue[]
 }
 
-const heightKeyM = (l: LevelInput) => Math.round((l.heightM ?? (l.heightFt ?? 0) * 0.3048) * 100)
+const heightKeyM = (l: LevelInput) => Math.round((l.heightM ?? (l.heightFt ?? 0) * M_PER_FT) * 100)
 
 export function parseCodedLines(text: string): CodedLevels {
   const out: CodedLevels = { levels: [], lines: [], reports: [], issues: [] }

@@ -3,7 +3,7 @@ import { airfieldCodeParamSchema } from '#shared/utils/airfield-schema'
 import { HEIGHT_REFERENCES, PROFILE_SOURCES } from '#shared/utils/profile-schema'
 import { parseProfileCsv } from '../../../../domain/profiles/import/csv'
 import { parseProfileJson } from '../../../../domain/profiles/import/json'
-import { airfieldByCode } from '../../../../domain/profiles/analysis'
+import { loadAirfield } from '../../../../domain/airfields/lookup'
 import { checkProfile, fileProfile, profileIssuesError } from '../../../../domain/profiles/filing'
 
 // A CSV or JSON file as the raw body; the profile's header fields in the query (a JSON file may carry its own).
@@ -25,8 +25,7 @@ export default defineApiHandler(async (event) => {
   const { code } = readParams(event, airfieldCodeParamSchema)
   const query = readQuery(event, querySchema)
   const text = await readLimitedText(event)
-  const airfield = await airfieldByCode(code)
-  if (!airfield) throw createError({ statusCode: 404, statusMessage: `No airfield with the code ${code}` })
+  const airfield = await loadAirfield(code)
   const { format, mode, fileName, ...given } = query
   const queryHeader = Object.fromEntries(Object.entries(given).filter(([, v]) => v !== undefined && v !== ''))
 

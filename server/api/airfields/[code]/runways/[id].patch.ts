@@ -2,7 +2,7 @@ import { z } from 'zod'
 import { airfieldCodeSchema, runwaySchema } from '#shared/utils/airfield-schema'
 import { idSchema } from '#shared/utils/input-schemas'
 import { airfieldDetail, runwayEndValues } from '../../../../domain/airfields'
-import { airfieldByCode } from '../../../../domain/profiles/analysis'
+import { loadAirfield } from '../../../../domain/airfields/lookup'
 
 const paramsSchema = z.object({ code: airfieldCodeSchema, id: idSchema('runway id') })
 
@@ -11,8 +11,7 @@ export default defineApiHandler(async (event) => {
   const user = await requireCapability(event, 'manage-airfields')
   const { code, id } = readParams(event, paramsSchema)
   const body = await readBodyWith(event, runwaySchema)
-  const airfield = await airfieldByCode(code)
-  if (!airfield) throw createError({ statusCode: 404, statusMessage: `No airfield with the code ${code}` })
+  const airfield = await loadAirfield(code)
   const ends = runwayEndValues(airfield, body)
   try {
     const found = await useDB().transaction(async (tx) => {

@@ -1,13 +1,12 @@
 import { airfieldCodeParamSchema, runwaySchema } from '#shared/utils/airfield-schema'
 import { airfieldDetail, runwayEndValues } from '../../../../domain/airfields'
-import { airfieldByCode } from '../../../../domain/profiles/analysis'
+import { loadAirfield } from '../../../../domain/airfields/lookup'
 
 export default defineApiHandler(async (event) => {
   const user = await requireCapability(event, 'manage-airfields')
   const { code } = readParams(event, airfieldCodeParamSchema)
   const body = await readBodyWith(event, runwaySchema)
-  const airfield = await airfieldByCode(code)
-  if (!airfield) throw createError({ statusCode: 404, statusMessage: `No airfield with the code ${code}` })
+  const airfield = await loadAirfield(code)
   const ends = runwayEndValues(airfield, body)
   try {
     const runway = await useDB().transaction(async (tx) => {

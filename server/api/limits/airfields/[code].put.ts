@@ -2,7 +2,7 @@ import { z } from 'zod'
 import { airfieldCodeParamSchema } from '#shared/utils/airfield-schema'
 import { limitChangeSchema } from '../../../domain/alerts/limit-sets'
 import { saveLimitSet } from '../../../domain/alerts/limit-change'
-import { airfieldByCode } from '../../../domain/profiles/analysis'
+import { loadAirfield } from '../../../domain/airfields/lookup'
 
 const bodySchema = limitChangeSchema.extend({
   // Set to override one runway end only; omit for the whole airfield.
@@ -14,8 +14,7 @@ export default defineApiHandler(async (event) => {
   const user = await requireCapability(event, 'manage-limits')
   const { code } = readParams(event, airfieldCodeParamSchema)
   const body = await readBodyWith(event, bodySchema, 'The limits were not changed')
-  const airfield = await airfieldByCode(code)
-  if (!airfield) throw createError({ statusCode: 404, statusMessage: `No airfield with the code ${code}` })
+  const airfield = await loadAirfield(code)
   const designator = body.designator ?? null
   if (designator) {
     const [end] = await useDB().select({ id: schema.runwayEnds.id }).from(schema.runwayEnds)

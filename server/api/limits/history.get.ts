@@ -1,16 +1,16 @@
+import { airfieldCodeField } from '#shared/utils/airfield-schema'
 import { z } from 'zod'
 import { decimalIntSchema } from '#shared/utils/input-schemas'
-import { airfieldByCode } from '../../domain/profiles/analysis'
+import { loadAirfield } from '../../domain/airfields/lookup'
 
-const querySchema = z.object({ airfield: z.string().trim().regex(/^[A-Za-z]{4}$/, 'airfield must be a four-letter code').optional(), limit: decimalIntSchema('limit', 1, 500).default(100) })
+const querySchema = z.object({ airfield: airfieldCodeField('Airfield').optional(), limit: decimalIntSchema('limit', 1, 500).default(100) })
 
 // Who changed which limits when, why, and from what to what.
 export default defineApiHandler(async (event) => {
   await requireCapability(event, 'manage-limits')
   const query = readQuery(event, querySchema)
   const c = schema.thresholdChanges
-  const airfield = query.airfield ? await airfieldByCode(query.airfield) : null
-  if (query.airfield && !airfield) throw createError({ statusCode: 404, statusMessage: `No airfield with the code ${query.airfield}` })
+  const airfield = query.airfield ? await loadAirfield(query.airfield) : null
   const rows = await useDB().select({ change: c, by: { name: schema.users.name, email: schema.users.email }, airfieldCode: schema.airfields.code })
     .from(c)
     .innerJoin(schema.users, eq(schema.users.id, c.changedByUserId))
