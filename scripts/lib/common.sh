@@ -12,6 +12,11 @@ ensure_node_modules() {
     log "installing node modules (npm ci)"
     npm ci --no-audit --no-fund
   fi
+  # Lint and type check read Nuxt's generated config; npm ci makes it (postinstall), a copied node_modules does not.
+  if [ ! -f .nuxt/eslint.config.mjs ]; then
+    log "generating Nuxt's types and configs (nuxt prepare)"
+    node_modules/.bin/nuxt prepare >/dev/null
+  fi
 }
 
 apt_ready=0

@@ -30,7 +30,7 @@ export function toHttpError(event: H3Event, err: unknown): unknown {
     return createError({
       statusCode: DOMAIN_ERROR_STATUS[err.kind],
       statusMessage: err.message,
-      data: err.kind === 'invalid' ? { issues: err.issues } : undefined,
+      data: err.kind === 'invalid' || err.issues.length ? { issues: err.issues } : undefined,
     })
   }
   if (err instanceof ZodError) {

@@ -3,7 +3,7 @@ import type { ZodError, ZodIssue } from 'zod'
 /** One refused field: `field` is a path spelled `levels[1].directionDeg`; `line` and `index` place it in a file or list. */
 export type FieldIssue = { field: string, message: string, line?: number, index?: number }
 
-export type DomainErrorKind = 'invalid' | 'not-found' | 'conflict' | 'gone' | 'forbidden'
+export type DomainErrorKind = 'invalid' | 'unauthorised' | 'not-found' | 'conflict' | 'gone' | 'forbidden' | 'unavailable'
 
 /**
  * What domain code throws instead of an HTTP error: a kind, a message a person can act on and, for refused input,
@@ -23,10 +23,12 @@ export class DomainError extends Error {
 /** HTTP status per domain error kind. */
 export const DOMAIN_ERROR_STATUS: Record<DomainErrorKind, number> = {
   'invalid': 422,
+  'unauthorised': 401,
   'not-found': 404,
   'conflict': 409,
   'gone': 410,
   'forbidden': 403,
+  'unavailable': 503,
 }
 
 /** The one spelling of a field path: object keys joined by dots, list positions in brackets (`ends[1].designator`). */
@@ -61,14 +63,23 @@ export function invalid(issues: FieldIssue[], message?: string): DomainError {
 export function notFound(message: string): DomainError {
   return new DomainError('not-found', message)
 }
-export function conflict(message: string): DomainError {
-  return new DomainError('conflict', message)
+/** 409; `issues` name the field that clashes (e.g. an e-mail already in use) so a form can mark it. */
+export function conflict(message: string, issues: FieldIssue[] = []): DomainError {
+  return new DomainError('conflict', message, issues)
+}
+/** 401: who is asking could not be established (bad credentials, unknown token). */
+export function unauthorised(message: string): DomainError {
+  return new DomainError('unauthorised', message)
 }
 export function gone(message: string): DomainError {
   return new DomainError('gone', message)
 }
 export function forbidden(message: string): DomainError {
   return new DomainError('forbidden', message)
+}
+/** 503: a service this needs (a local stand-in, a peer) is not answering; trying later may work. */
+export function unavailable(message: string): DomainError {
+  return new DomainError('unavailable', message)
 }
 
 /** Turns a zod error into a 422 whose data lists every field with its message. */

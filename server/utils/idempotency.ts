@@ -2,6 +2,7 @@ import type { H3Event } from 'h3'
 import type { FilingActor } from '../domain/profiles/filing'
 import { and, eq, schema, useDB } from './db'
 import type { Tx } from './db'
+import { invalid } from './errors'
 import { sha256Hex } from '../domain/accounts/api-tokens'
 
 export type IdempotencyClaim = { scope: string, key: string, route: string, requestHash: string }
@@ -11,7 +12,7 @@ export function idempotencyClaim(event: H3Event, actor: FilingActor, rawBody: st
   const key = getHeader(event, 'idempotency-key')?.trim()
   if (key === undefined || key === '') return null
   if (key.length > 200 || !/^[\x21-\x7e]+$/.test(key)) {
-    throw createError({ statusCode: 400, statusMessage: 'Idempotency-Key must be 1 to 200 visible ASCII characters' })
+    throw invalid([{ field: 'Idempotency-Key', message: 'must be 1 to 200 visible ASCII characters' }], 'Idempotency-Key must be 1 to 200 visible ASCII characters')
   }
   const scope = actor.token ? `token:${actor.token.id}` : `user:${actor.user.id}`
   const { path, query } = normalisedTarget(event.path)
@@ -43,7 +44,7 @@ export async function storedAnswer(claim: IdempotencyClaim) {
     .where(and(eq(schema.idempotencyKeys.scope, claim.scope), eq(schema.idempotencyKeys.idemKey, claim.key)))
   if (!row) return null
   if (row.requestHash !== claim.requestHash || row.route !== claim.route) {
-    throw createError({ statusCode: 422, statusMessage: 'This Idempotency-Key was already used for a different request; send a new key' })
+    throw invalid([{ field: 'Idempotency-Key', message: 'was already used for a different request' }], 'This Idempotency-Key was already used for a different request; send a new key')
   }
   return { status: row.responseStatus, body: row.responseBody }
 }
@@ -59,4 +60,30 @@ export async function storeAnswer(tx: Tx, claim: IdempotencyClaim, status: numbe
 export function isDuplicateKeyError(err: unknown): boolean {
   const e = err as { code?: string, cause?: { code?: string } }
   return e?.code === 'ER_DUP_ENTRY' || e?.cause?.code === 'ER_DUP_ENTRY'
+}
+
+/**
+ * Runs a write once per Idempotency-Key: a repeated request (or a twin that lost the race on the unique key) gets
+ * the first answer again with `Idempotent-Replayed: true`; `run` stores its answer in its own transaction.
+ */
+export async function onceForKey<T>(event: H3Event, claim: IdempotencyClaim | null, run: () => Promise<T>): Promise<T | unknown> {
+  const replay = async () => {
+    const first = claim && await storedAnswer(claim)
+    if (!first) return null
+    setResponseStatus(event, first.status)
+    setHeader(event, 'Idempotent-Replayed', 'true')
+    return first.body
+  }
+  const replayed = await replay()
+  if (replayed) return replayed
+  try {
+    return await run()
+  }
+  catch (err) {
+    if (claim && isDuplicateKeyError(err)) {
+      const again = await replay()
+      if (again) return again
+    }
+    throw err
+  }
 }

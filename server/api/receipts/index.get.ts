@@ -6,11 +6,7 @@ import { loadAirfield } from '../../domain/airfields/lookup'
 export default defineApiHandler(async (event) => {
   const user = await requireCapability(event, 'read-briefings')
   const query = readQuery(event, receiptQuerySchema)
-  let airfieldId: number | undefined
-  if (query.airfield) {
-    const airfield = await loadAirfield(query.airfield)
-    airfieldId = airfield.id
-  }
+  const airfieldId = query.airfield ? (await loadAirfield(query.airfield)).id : undefined
   const receipts = await listReceipts({
     airfieldId, profileId: query.profile, userId: user.role === 'pilot' ? user.id : undefined,
   })

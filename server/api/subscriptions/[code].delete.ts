@@ -1,13 +1,12 @@
 import { airfieldCodeParamSchema } from '#shared/utils/airfield-schema'
 import { loadAirfield } from '../../domain/airfields/lookup'
+import { unfollow } from '../../domain/alerts/subscriptions'
 
+// Stops following an airfield.
 export default defineApiHandler(async (event) => {
   const user = await requireUser(event)
   const { code } = readParams(event, airfieldCodeParamSchema)
-  const airfield = await loadAirfield(code)
-  const s = schema.alertSubscriptions
-  const [result] = await useDB().delete(s).where(and(eq(s.userId, user.id), eq(s.airfieldId, airfield.id)))
-  if (!result.affectedRows) throw createError({ statusCode: 404, statusMessage: `You do not follow ${code}` })
+  await unfollow(user.id, await loadAirfield(code))
   setResponseStatus(event, 204)
   return null
 })

@@ -1,6 +1,7 @@
 import { z } from 'zod'
 import { airfieldCodeParamSchema } from '#shared/utils/airfield-schema'
 import { loadAirfield } from '../../domain/airfields/lookup'
+import { follow } from '../../domain/alerts/subscriptions'
 
 const bodySchema = z.object({
   email: z.boolean({ required_error: 'email is required (true or false)' }),
@@ -12,8 +13,5 @@ export default defineApiHandler(async (event) => {
   const user = await requireUser(event)
   const { code } = readParams(event, airfieldCodeParamSchema)
   const body = await readBodyWith(event, bodySchema)
-  const airfield = await loadAirfield(code)
-  await useDB().insert(schema.alertSubscriptions).values({ userId: user.id, airfieldId: airfield.id, ...body })
-    .onDuplicateKeyUpdate({ set: body })
-  return { airfieldCode: airfield.code, ...body }
+  return follow(user.id, await loadAirfield(code), body)
 })

@@ -5,6 +5,7 @@ import type { H3Event } from 'h3'
 import { and, eq, lt, ne, or, schema, useDB } from '../../utils/db'
 import type { DB, Tx } from '../../utils/db'
 import type { User } from '../../db/schema'
+import { recordAudit } from '../../utils/audit'
 
 /** How often a session's last-seen time (and its cookie's expiry) is moved on: at most one write a minute. */
 export const SESSION_TOUCH_MS = 60_000
@@ -104,4 +105,11 @@ export async function endUserSessions(userId: number, db: DB | Tx = useDB(), kee
     : eq(schema.userSessions.userId, userId)
   const [result] = await db.delete(schema.userSessions).where(where) as unknown as [{ affectedRows: number }]
   return result?.affectedRows ?? 0
+}
+
+/** Ends every session of the account, this one included, and records it; the route then clears the cookie. */
+export async function signOutEverywhere(user: User) {
+  const ended = await endUserSessions(user.id)
+  await recordAudit(useDB(), { user }, 'session.sign-out-everywhere', 'user', user.id, { ended })
+  return ended
 }

@@ -1,4 +1,7 @@
+import type { User } from '../../db/schema'
 import { and, desc, eq, schema, useDB } from '../../utils/db'
+import { recordAudit } from '../../utils/audit'
+import { notFound } from '../../utils/errors'
 
 /** The signed-in user's receipt for one profile version, if they marked it read. */
 export async function receiptOf(userId: number, profileId: number) {
@@ -43,4 +46,20 @@ export async function listReceipts(filter: { airfieldId?: number, profileId?: nu
       ? `Profile ${row.profileId} has been superseded${row.supersededById ? ` by profile ${row.supersededById}` : ''}`
       : row.profileStatus === 'withdrawn' ? `Profile ${row.profileId} has been withdrawn` : null,
   }))
+}
+
+/** A pilot marks the briefing of one profile version as read; marking it again changes nothing (created: false). */
+export async function recordReceipt(user: User, profileId: number) {
+  const created = await useDB().transaction(async (tx) => {
+    const [profile] = await tx.select().from(schema.profiles).where(eq(schema.profiles.id, profileId))
+    if (!profile) throw notFound(`No profile with id ${profileId}`)
+    const [existing] = await tx.select().from(schema.briefingReceipts)
+      .where(and(eq(schema.briefingReceipts.userId, user.id), eq(schema.briefingReceipts.profileId, profileId)))
+    if (existing) return false
+    const [inserted] = await tx.insert(schema.briefingReceipts)
+      .values({ userId: user.id, profileId, airfieldId: profile.airfieldId, readAt: new Date() }).$returningId()
+    await recordAudit(tx, { user }, 'briefing.read', 'profile', profileId, { receiptId: inserted?.id, airfieldId: profile.airfieldId })
+    return true
+  })
+  return { receipt: await receiptOf(user.id, profileId), created }
 }

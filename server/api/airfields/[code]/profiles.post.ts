@@ -12,18 +12,9 @@ export default defineApiHandler(async (event) => {
   const { code } = readParams(event, airfieldCodeParamSchema)
   const query = readQuery(event, querySchema)
   const { raw, value } = await readLimitedJson(event)
-  const claim = idempotencyClaim(event, actor, raw)
-  if (claim) {
-    const first = await storedAnswer(claim)
-    if (first) {
-      setResponseStatus(event, first.status)
-      setHeader(event, 'Idempotent-Replayed', 'true')
-      return first.body
-    }
-  }
   const airfield = await loadAirfield(code)
-
-  try {
+  const claim = idempotencyClaim(event, actor, raw)
+  return onceForKey(event, claim, async () => {
     const answer = await useDB().transaction(async (tx) => {
       const filed = await fileProfile(tx, { airfield, input: value, actor, entryMethod: actor.token ? 'api' : query.entry })
       if (claim) await storeAnswer(tx, claim, 201, filed)
@@ -31,17 +22,5 @@ export default defineApiHandler(async (event) => {
     })
     setResponseStatus(event, 201)
     return answer
-  }
-  catch (err) {
-    // A twin request with the same key committed first: answer as it was answered.
-    if (claim && isDuplicateKeyError(err)) {
-      const first = await storedAnswer(claim)
-      if (first) {
-        setResponseStatus(event, first.status)
-        setHeader(event, 'Idempotent-Replayed', 'true')
-        return first.body
-      }
-    }
-    throw err
-  }
+  })
 })

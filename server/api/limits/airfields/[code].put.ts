@@ -3,6 +3,7 @@ import { airfieldCodeParamSchema } from '#shared/utils/airfield-schema'
 import { limitChangeSchema } from '../../../domain/alerts/limit-sets'
 import { saveLimitSet } from '../../../domain/alerts/limit-change'
 import { loadAirfield } from '../../../domain/airfields/lookup'
+import { requireRunwayEnd } from '../../../domain/alerts/limit-views'
 
 const bodySchema = limitChangeSchema.extend({
   // Set to override one runway end only; omit for the whole airfield.
@@ -16,10 +17,6 @@ export default defineApiHandler(async (event) => {
   const body = await readBodyWith(event, bodySchema, 'The limits were not changed')
   const airfield = await loadAirfield(code)
   const designator = body.designator ?? null
-  if (designator) {
-    const [end] = await useDB().select({ id: schema.runwayEnds.id }).from(schema.runwayEnds)
-      .where(and(eq(schema.runwayEnds.airfieldId, airfield.id), eq(schema.runwayEnds.designator, designator)))
-    if (!end) throw createError({ statusCode: 422, statusMessage: `${code} has no runway end ${designator}`, data: { issues: [{ field: 'designator', message: `${code} has no runway end ${designator}` }] } })
-  }
+  if (designator) await requireRunwayEnd(airfield, designator)
   return saveLimitSet(useDB(), user, { airfieldId: airfield.id, designator }, body.values, body.reason)
 })

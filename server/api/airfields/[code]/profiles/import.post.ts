@@ -4,7 +4,8 @@ import { HEIGHT_REFERENCES, PROFILE_SOURCES } from '#shared/utils/profile-schema
 import { parseProfileCsv } from '../../../../domain/profiles/import/csv'
 import { parseProfileJson } from '../../../../domain/profiles/import/json'
 import { loadAirfield } from '../../../../domain/airfields/lookup'
-import { checkProfile, fileProfile, profileIssuesError } from '../../../../domain/profiles/filing'
+import { fileProfile, profileIssuesError } from '../../../../domain/profiles/filing'
+import { previewImport } from '../../../../domain/profiles/import/preview'
 
 // A CSV or JSON file as the raw body; the profile's header fields in the query (a JSON file may carry its own).
 // mode=preview answers the parsed levels and every problem with its line and saves nothing; mode=file files
@@ -36,35 +37,14 @@ export default defineApiHandler(async (event) => {
   const lineOf = (index: number) => parsed.lines[index]
 
   if (mode === 'preview') {
-    let issues: { field: string, message: string, line?: number, index?: number }[] = parsed.issues
-    let warnings: unknown[] = []
-    if (!issues.length) {
-      try {
-        const ends = await useDB().select().from(schema.runwayEnds).where(eq(schema.runwayEnds.airfieldId, airfield.id))
-        warnings = checkProfile(airfield, ends, input, lineOf).analysis.warnings
-      }
-      catch (err) {
-        const data = (err as { data?: { issues?: typeof issues } }).data
-        if (!data?.issues) throw err
-        issues = data.issues
-      }
-    }
+    const { issues, warnings } = await previewImport(airfield, input, parsed.issues, lineOf)
     return { levels: parsed.levels, lines: parsed.lines, header: parsed.header, issues, warnings }
   }
 
   // Filing a file honours Idempotency-Key like the JSON route; the query (format and header fields) is part of it.
   const claim = idempotencyClaim(event, actor, text)
-  const replay = async () => {
-    const first = claim && await storedAnswer(claim)
-    if (!first) return null
-    setResponseStatus(event, first.status)
-    setHeader(event, 'Idempotent-Replayed', 'true')
-    return first.body
-  }
-  const replayed = await replay()
-  if (replayed) return replayed
   if (parsed.issues.length) throw profileIssuesError(parsed.issues, `The file was not filed, nothing was saved`)
-  try {
+  return onceForKey(event, claim, async () => {
     const filed = await useDB().transaction(async (tx) => {
       const answer = await fileProfile(tx, {
         airfield, input, actor, entryMethod: actor.token ? 'api' : 'file', lineOf, details: { format, fileName: fileName ?? null },
@@ -74,13 +54,5 @@ export default defineApiHandler(async (event) => {
     })
     setResponseStatus(event, 201)
     return filed
-  }
-  catch (err) {
-    // A twin request with the same key committed first: answer as it was answered.
-    if (claim && isDuplicateKeyError(err)) {
-      const again = await replay()
-      if (again) return again
-    }
-    throw err
-  }
+  })
 })

@@ -1,0 +1,54 @@
+import type { User } from '../../db/schema'
+import { and, asc, desc, eq, inArray, schema, useDB } from '../../utils/db'
+import { recordAudit } from '../../utils/audit'
+import { notFound } from '../../utils/errors'
+
+export type AlertLogFilter = { airfieldId?: number, state?: 'active' | 'cleared' | 'superseded' | 'expired', limit: number }
+
+/** The alert log: every alert, newest first, with each of its deliveries (state, attempts, last error). */
+export async function listAlerts(filter: AlertLogFilter) {
+  const a = schema.alerts
+  const rows = await useDB().select({ alert: a, airfieldCode: schema.airfields.code, profile: { validFrom: schema.profiles.validFrom, validTo: schema.profiles.validTo } })
+    .from(a)
+    .innerJoin(schema.airfields, eq(schema.airfields.id, a.airfieldId))
+    .innerJoin(schema.profiles, eq(schema.profiles.id, a.profileId))
+    .where(and(filter.airfieldId ? eq(a.airfieldId, filter.airfieldId) : undefined, filter.state ? eq(a.state, filter.state) : undefined))
+    .orderBy(desc(a.id))
+    .limit(filter.limit)
+  const o = schema.outbox
+  const deliveries = rows.length
+    ? await useDB().select({ id: o.id, alertId: o.alertId, kind: o.kind, channel: o.channel, to: o.toAddress, userId: o.userId, state: o.state,
+        attempts: o.attempts, lastError: o.lastError, nextAttemptAt: o.nextAttemptAt, sentAt: o.sentAt, sentBy: o.sentBy, createdAt: o.createdAt })
+        .from(o).where(inArray(o.alertId, rows.map(r => r.alert.id))).orderBy(asc(o.id))
+    : []
+  return rows.map(r => ({
+    ...r.alert, airfieldCode: r.airfieldCode, validFrom: r.profile.validFrom, validTo: r.profile.validTo,
+    deliveries: deliveries.filter(d => d.alertId === r.alert.id),
+  }))
+}
+
+export type DeliveryFilter = {
+  state?: 'queued' | 'sent' | 'failed'
+  kind?: 'alert-raised' | 'alert-cleared' | 'invitation' | 'password-reset'
+  limit: number
+}
+
+/** The outbox itself, newest first: every notice (alerts, invitations, resets) and how its delivery stands. */
+export async function listDeliveries(filter: DeliveryFilter) {
+  const o = schema.outbox
+  return useDB().select({ id: o.id, kind: o.kind, channel: o.channel, alertId: o.alertId, userId: o.userId, to: o.toAddress,
+    subject: o.subject, state: o.state, attempts: o.attempts, lastError: o.lastError, nextAttemptAt: o.nextAttemptAt, sentAt: o.sentAt,
+    sentBy: o.sentBy, createdAt: o.createdAt }).from(o)
+    .where(and(filter.state ? eq(o.state, filter.state) : undefined, filter.kind ? eq(o.kind, filter.kind) : undefined))
+    .orderBy(desc(o.id)).limit(filter.limit)
+}
+
+/** Puts a failed delivery back in the queue, due now. */
+export async function retryDelivery(user: User, id: number) {
+  const o = schema.outbox
+  const [result] = await useDB().update(o).set({ state: 'queued', nextAttemptAt: new Date(), updatedAt: new Date() })
+    .where(and(eq(o.id, id), eq(o.state, 'failed')))
+  if (!result.affectedRows) throw notFound(`No failed delivery #${id}`)
+  await recordAudit(useDB(), { user }, 'outbox.retry', 'outbox', id)
+  return { id, state: 'queued' as const }
+}

@@ -1,0 +1,30 @@
+import type { Airfield } from '../../db/schema'
+import { and, eq, schema, sql, useDB } from '../../utils/db'
+import { notFound } from '../../utils/errors'
+
+export type Channels = { email: boolean, push: boolean }
+
+/** The user's subscriptions (airfields x channels), the airfields there are to choose from, and their push devices. */
+export async function subscriptionsOf(userId: number) {
+  const s = schema.alertSubscriptions
+  const [subscriptions, airfields, devices] = await Promise.all([
+    useDB().select({ airfieldCode: schema.airfields.code, airfieldName: schema.airfields.name, email: s.email, push: s.push })
+      .from(s).innerJoin(schema.airfields, eq(schema.airfields.id, s.airfieldId)).where(eq(s.userId, userId)).orderBy(schema.airfields.code),
+    useDB().select({ code: schema.airfields.code, name: schema.airfields.name }).from(schema.airfields).orderBy(schema.airfields.code),
+    useDB().select({ n: sql<number>`COUNT(*)` }).from(schema.pushSubscriptions).where(eq(schema.pushSubscriptions.userId, userId)),
+  ])
+  return { subscriptions, airfields, pushDevices: Number(devices[0]?.n ?? 0) }
+}
+
+/** Follows an airfield (or changes the channels). The in-app inbox always receives its alerts. */
+export async function follow(userId: number, airfield: Airfield, channels: Channels) {
+  await useDB().insert(schema.alertSubscriptions).values({ userId, airfieldId: airfield.id, ...channels })
+    .onDuplicateKeyUpdate({ set: channels })
+  return { airfieldCode: airfield.code, ...channels }
+}
+
+export async function unfollow(userId: number, airfield: Airfield) {
+  const s = schema.alertSubscriptions
+  const [result] = await useDB().delete(s).where(and(eq(s.userId, userId), eq(s.airfieldId, airfield.id)))
+  if (!result.affectedRows) throw notFound(`You do not follow ${airfield.code}`)
+}
