@@ -54,9 +54,10 @@ export function toHttpError(event: H3Event, err: unknown): unknown {
 export function defineApiHandler<T, R extends EventHandlerRequest = EventHandlerRequest>(
   handler: (event: H3Event<R>) => T | Promise<T>,
 ) {
-  return defineEventHandler<R>(async (event) => {
+  // Both type arguments: with the request type alone, h3 would type every answer as `any` for the pages.
+  return defineEventHandler<R, Promise<Awaited<T>>>(async (event): Promise<Awaited<T>> => {
     try {
-      return await handler(event)
+      return (await handler(event)) as Awaited<T>
     }
     catch (err) {
       throw toHttpError(event, err)

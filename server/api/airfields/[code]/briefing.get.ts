@@ -4,15 +4,14 @@ import { readBriefing, type BriefingAnswer } from '../../../domain/briefings/rea
 
 // The runway briefing of an airfield: the profile valid now (or at ?at=, or the version ?profile=), every role.
 // Answered from the analysis cache as JSON text, with a weak ETag (304 when the reader already has it).
-export default defineEventHandler(async (event) => {
+export default defineApiHandler(async (event) => {
   const user = await requireRole(event, 'admin', 'dispatcher', 'pilot', 'safety')
-  const params = await getValidatedRouterParams(event, airfieldCodeParamSchema.safeParse)
-  if (!params.success) throw validationError(params.error, 'The airfield code is not valid')
+  const { code } = readParams(event, airfieldCodeParamSchema)
   const query = await getValidatedQuery(event, briefingQuerySchema.safeParse)
   if (!query.success) throw validationError(query.error, 'The briefing query is not valid')
-  const read = await readBriefing(params.data.code, user.id, { at: query.data.at, profileId: query.data.profile, precision: query.data.precision })
-  if (read.kind === 'no-airfield') throw createError({ statusCode: 404, statusMessage: `No airfield with the code ${read.code}` })
-  if (read.kind === 'no-such-profile') throw createError({ statusCode: 404, statusMessage: `Profile ${read.profileId} is not a profile of ${read.code}` })
+  const read = await readBriefing(code, user.id, { at: query.data.at, profileId: query.data.profile, precision: query.data.precision })
+  if (read.kind === 'no-airfield') throw notFound(`No airfield with the code ${read.code}`)
+  if (read.kind === 'no-such-profile') throw notFound(`Profile ${read.profileId} is not a profile of ${read.code}`)
   setResponseHeader(event, 'etag', read.etag)
   setResponseHeader(event, 'cache-control', 'private, no-cache')
   if (getRequestHeader(event, 'if-none-match') === read.etag) return sendNoContent(event, 304)
