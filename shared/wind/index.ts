@@ -12,6 +12,7 @@ export {
 } from '../units'
 export { normaliseHeadingDeg, signedAngleDiffDeg } from './angles'
 export { windToUV, uvToWind } from './vector'
+export { windAtHeightAglM, type WindAtHeight } from './at-height'
 export {
   runwayComponents, designatorMismatch, designatorHeadingDeg, reciprocalHeadingDeg, DESIGNATOR_TOLERANCE_DEG,
 } from './runway'

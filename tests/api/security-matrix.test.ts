@@ -25,6 +25,7 @@ const MATRIX: Record<string, Access & { fresh?: boolean }> = {
   'GET /api/airfields/[code]': ANY,
   'PATCH /api/airfields/[code]': roles('dispatcher', 'admin'),
   'GET /api/airfields/[code]/briefing': ANY,
+  'GET /api/airfields/[code]/events': ANY,
   'GET /api/airfields/[code]/profiles': ANY,
   'POST /api/airfields/[code]/profiles': filer,
   'POST /api/airfields/[code]/profiles/import': filer,

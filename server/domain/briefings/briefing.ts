@@ -12,12 +12,17 @@ import { M_PER_FT } from '../../../shared/units'
 import { loadAirfield } from '../airfields/lookup'
 import type { effectiveLimits } from '../alerts/limits'
 import { VEERLINE_CAUTION } from '../../../shared/utils/caution'
+import { profileStatusAt, type ProfileStatus } from '../../../shared/briefing/status'
+import { keyHeights } from '../../../shared/briefing/key-heights'
+import { airfieldVerdict } from '../../../shared/briefing/verdict'
+import type { BriefingChange } from '../../../shared/briefing/change'
 
 /** The limits a briefing is held against: the safety office's sets layered over the defaults. */
 export type BriefingLimits = Pick<Awaited<ReturnType<typeof effectiveLimits>>, 'limits' | 'limitsFor' | 'source'>
 
-export type ProfileStatus = 'current' | 'expired' | 'upcoming' | 'superseded' | 'withdrawn'
+export type { ProfileStatus }
 
+/** The status words when no time was chosen (now); see statusWordsAt for a chosen time. */
 export const STATUS_WORDS: Record<ProfileStatus, string> = {
   current: 'Current: valid now',
   expired: 'Expired: its validity has ended',
@@ -26,13 +31,9 @@ export const STATUS_WORDS: Record<ProfileStatus, string> = {
   withdrawn: 'Withdrawn: do not use',
 }
 
-/** Where a profile stands now. Withdrawn and superseded come first: they override validity. */
-export function profileStatus(p: Pick<Profile, 'status' | 'validFrom' | 'validTo'>, now: Date): ProfileStatus {
-  if (p.status === 'withdrawn') return 'withdrawn'
-  if (p.status === 'superseded') return 'superseded'
-  if (p.validTo.getTime() < now.getTime()) return 'expired'
-  if (p.validFrom.getTime() > now.getTime()) return 'upcoming'
-  return 'current'
+/** Where a profile stands at `at` (now unless a time was chosen). Withdrawn and superseded override validity. */
+export function profileStatus(p: Pick<Profile, 'status' | 'validFrom' | 'validTo'>, at: Date): ProfileStatus {
+  return profileStatusAt(p, at)
 }
 
 export type RankedEnd = {
@@ -109,28 +110,6 @@ export function feetSteps(grid: GridPoint[], ends: Pick<RunwayEndAnalysis, 'desi
   return rows
 }
 
-/** The profile as a briefing shows it: the one view, used by the full briefing and the cached one alike. */
-export function publicProfileOf(
-  p: Pick<Profile, 'id' | 'source' | 'validFrom' | 'validTo' | 'createdAt' | 'heightReference' | 'status' | 'supersededById' | 'withdrawnReason' | 'notes'>,
-  now: Date,
-) {
-  const status = profileStatus(p, now)
-  return {
-    id: p.id,
-    source: p.source,
-    validFrom: p.validFrom.toISOString(),
-    validTo: p.validTo.toISOString(),
-    filedAt: p.createdAt.toISOString(),
-    heightReference: p.heightReference,
-    ageMinutes: Math.round((now.getTime() - p.validFrom.getTime()) / 60_000),
-    status,
-    statusWords: STATUS_WORDS[status],
-    supersededById: p.supersededById,
-    withdrawnReason: p.withdrawnReason,
-    notes: p.notes,
-  }
-}
-
 export function publicAirfield(a: Airfield, ends: RunwayEnd[]) {
   return {
     code: a.code, name: a.name, latitudeDeg: a.latitudeDeg, longitudeDeg: a.longitudeDeg, elevationM: a.elevationM,
@@ -139,8 +118,11 @@ export function publicAirfield(a: Airfield, ends: RunwayEnd[]) {
   }
 }
 
-/** Everything a briefing shows, from an analysed stored profile and the limits. Pure. */
-export function assembleBriefing(stored: StoredProfileAnalysis, limitSet: BriefingLimits, now: Date, at: Date) {
+/**
+ * Everything a briefing shows that does not depend on the time it is read, from an analysed stored profile and the
+ * limits, and the change against the profile it superseded (when there is one). Pure.
+ */
+export function assembleBriefing(stored: StoredProfileAnalysis, limitSet: BriefingLimits, change: BriefingChange | null = null) {
   const { analysis, profile, airfield, runwayEnds, declination } = stored
   const checks = evaluateLimits(analysis, limitSet.limits, limitSet.limitsFor)
   const ranking = rankRunwayEnds(analysis.runwayEnds, checks)
@@ -161,11 +143,9 @@ export function assembleBriefing(stored: StoredProfileAnalysis, limitSet: Briefi
         ...runwayComponents(l.directionDeg, l.speedKt, end.trueHeadingDeg) })),
     }
   })
+  const endInputs = analysis.runwayEnds.map(e => ({ designator: e.designator, trueHeadingDeg: e.trueHeadingDeg }))
   return {
-    at: at.toISOString(),
-    generatedAt: now.toISOString(),
     airfield: publicAirfield(airfield, runwayEnds),
-    profile: publicProfileOf(profile, now),
     declination: { declinationDeg: declination.declinationDeg, source: declination.source, reason: declination.reason,
       date: declination.date.toISOString() },
     limits: { values: limitSet.limits, source: limitSet.source },
@@ -187,6 +167,13 @@ export function assembleBriefing(stored: StoredProfileAnalysis, limitSet: Briefi
     airfieldChecks: checks.filter(c => c.designator === null),
     checks,
     ranking,
+    verdict: airfieldVerdict(analysis.runwayEnds.map(e => e.designator), checks),
+    // SFC and round heights in each unit, interpolated at exactly those heights (not converted).
+    keyHeights: {
+      ft: keyHeights(analysis.levels, analysis.surface, endInputs, 'ft'),
+      m: keyHeights(analysis.levels, analysis.surface, endInputs, 'm'),
+    },
+    change,
     convective: analysis.convective,
     warnings: analysis.warnings,
     caution: VEERLINE_CAUTION,

@@ -8,7 +8,9 @@ import { createHash } from 'node:crypto'
 import type { Airfield, Profile, RunwayEnd, ThresholdSet } from '../../db/schema'
 import { asc, inArray, schema, usePool, useDB } from '../../utils/db'
 import { analyseStored } from '../profiles/analysis'
-import { assembleBriefing, publicAirfield, publicProfileOf, rankRunwayEnds, type Briefing } from './briefing'
+import { assembleBriefing, publicAirfield, rankRunwayEnds, type Briefing } from './briefing'
+import { DEFAULT_STALE_AFTER_MIN, profileAges, profileStatusAt, statusWordsAt } from '../../../shared/briefing/status'
+import { briefingChangeOf, keyFiguresOf } from '../../../shared/briefing/change'
 import { evaluateLimits } from '../../../shared/limits'
 import { limitSetFromRows } from '../alerts/limits'
 import { VEERLINE_CAUTION } from '../../../shared/utils/caution'
@@ -16,7 +18,7 @@ import { BoundedCache } from './analysis-cache'
 import { displayGridIndexes, displayLevelIndexes, roundFigures } from './precision'
 
 /** Changes whenever the engine, the magnetic model or the shape of the answer changes: part of every key. */
-const CODE_VERSION = 'engine-1;wmm2025;view-1'
+const CODE_VERSION = 'engine-1;wmm2025;view-2'
 
 const CAUTION_JSON = JSON.stringify(VEERLINE_CAUTION)
 
@@ -31,7 +33,8 @@ const ORG_LIMITS_SQL = `(SELECT ${LIMITS_SIG} FROM threshold_sets t WHERE t.scop
 const stampSql = (endsSig: string, fieldLimitsSig: string) => `MD5(CONCAT_WS('|', a.id, a.code, a.name, a.updated_at,
   a.latitude_deg, a.longitude_deg, a.elevation_m, IFNULL(a.mag_var_override_deg, '~'), IFNULL(a.mag_var_override_reason, '~'),
   IFNULL(${endsSig}, '~'), IFNULL(${ORG_LIMITS_SQL}, '~'), IFNULL(${fieldLimitsSig}, '~')))`
-const STAMP_ONE_SQL = stampSql(`(SELECT ${ENDS_SIG} FROM runway_ends e WHERE e.airfield_id = a.id)`,
+/** The digest of one airfield's analysis inputs (row `a`): its row, runway ends and limit sets. */
+export const STAMP_ONE_SQL = stampSql(`(SELECT ${ENDS_SIG} FROM runway_ends e WHERE e.airfield_id = a.id)`,
   `(SELECT ${LIMITS_SIG} FROM threshold_sets t WHERE t.airfield_id = a.id)`)
 const ENDS_BY_AIRFIELD_SQL = `(SELECT e.airfield_id, ${ENDS_SIG} AS sig,
   GROUP_CONCAT(e.designator ORDER BY e.designator SEPARATOR ',') AS designators FROM runway_ends e GROUP BY e.airfield_id)`
@@ -113,24 +116,35 @@ async function computeMany(items: { key: string, precision: Precision, profile: 
   if (!items.length) return new Map<string, CachedBriefing>()
   const db = useDB()
   const airfieldIds = [...new Set(items.map(i => i.airfield.id))]
+  const profileIds = [...new Set(items.map(i => i.profile.id))]
+  // The profiles these ones superseded: the briefing shows what changed against the newest of them.
+  const previousRows = await db.select().from(schema.profiles).where(inArray(schema.profiles.supersededById, profileIds))
   const [endRows, levelRows, limitRows] = await Promise.all([
     db.select().from(schema.runwayEnds).where(inArray(schema.runwayEnds.airfieldId, airfieldIds)),
-    db.select().from(schema.profileLevels).where(inArray(schema.profileLevels.profileId, [...new Set(items.map(i => i.profile.id))]))
+    db.select().from(schema.profileLevels).where(inArray(schema.profileLevels.profileId, [...profileIds, ...previousRows.map(p => p.id)]))
       .orderBy(asc(schema.profileLevels.profileId), asc(schema.profileLevels.seq)),
     usePool().query(`SELECT * FROM threshold_sets WHERE scope_key = 'org' OR airfield_id IN (?)`, [airfieldIds])
       .then(([rows]) => (rows as Row[]).map(thresholdRow)),
   ])
   const out = new Map<string, CachedBriefing>()
-  const now = new Date()
   for (const item of items) {
     const ends = endRows.filter(e => e.airfieldId === item.airfield.id)
     const levels = levelRows.filter(l => l.profileId === item.profile.id)
     const limitSet = limitSetFromRows(limitRows, item.airfield.id)
     const stored = analyseStored(item.profile as Profile, item.airfield, ends, levels)
-    const full = assembleBriefing(stored, limitSet, now, now)
     const checks = evaluateLimits(stored.analysis, limitSet.limits, limitSet.limitsFor)
+    const previous = previousRows.filter(p => p.supersededById === item.profile.id)
+      .sort((a, b) => b.validFrom.getTime() - a.validFrom.getTime() || b.id - a.id)[0]
+    let change = null
+    if (previous) {
+      // The superseded profile held against today's limits and runway ends: the change is the wind's, not the limits'.
+      const before = analyseStored(previous, item.airfield, ends, levelRows.filter(l => l.profileId === previous.id))
+      const beforeChecks = evaluateLimits(before.analysis, limitSet.limits, limitSet.limitsFor)
+      change = briefingChangeOf(previous.id, keyFiguresOf(before.analysis, beforeChecks), keyFiguresOf(stored.analysis, checks))
+    }
+    const full = assembleBriefing(stored, limitSet, change)
     const ranking = rankRunwayEnds(stored.analysis.runwayEnds, checks)
-    const { at: _a, generatedAt: _g, profile: _p, ...rest } = item.precision === 'full' ? full : briefingView(full, item.profile.id)
+    const rest = item.precision === 'full' ? full : briefingView(full, item.profile.id)
     const restJson = JSON.stringify(rest)
     const entry: CachedBriefing = {
       restJson,
@@ -166,10 +180,34 @@ const AIRFIELD_COLUMNS = `a.id AS a_id, a.code AS a_code, a.name AS a_name, a.la
   a.mag_var_override_deg AS a_mag_var_override_deg, a.mag_var_override_reason AS a_mag_var_override_reason,
   a.notes AS a_notes, a.created_at AS a_created_at, a.updated_at AS a_updated_at`
 
+/** Minutes after filing past which the briefing warns that its profile is stale (VEERLINE_STALE_AFTER_MIN). */
+export const STALE_AFTER_MIN = Number(process.env.VEERLINE_STALE_AFTER_MIN) || DEFAULT_STALE_AFTER_MIN
+
+/** The profile's head for one read: its status at the chosen time (`at`, now by default) and its ages. */
+export function publicProfileOf(p: ProfileHead, now: Date, at: Date = now, chosen = false) {
+  const status = profileStatusAt(p, at)
+  return {
+    id: p.id,
+    source: p.source,
+    validFrom: p.validFrom.toISOString(),
+    validTo: p.validTo.toISOString(),
+    filedAt: p.createdAt.toISOString(),
+    heightReference: p.heightReference,
+    ...profileAges({ createdAt: p.createdAt }, now, at, STALE_AFTER_MIN),
+    /** At the chosen time; `statusNow` is where it stands now. */
+    status,
+    statusWords: statusWordsAt(status, p, at, chosen),
+    statusNow: profileStatusAt(p, now),
+    supersededById: p.supersededById,
+    withdrawnReason: p.withdrawnReason,
+    notes: p.notes,
+  }
+}
+
 export type BriefingView = ReturnType<typeof briefingView>
 
 /** The shape of the JSON text readBriefing answers (for the route's type: the text itself is spliced, not built). */
-type BriefingBody = BriefingView & { at: string, generatedAt: string, profile: ReturnType<typeof publicProfileOf> }
+type BriefingBody = BriefingView & { at: string, atChosen: boolean, generatedAt: string, profile: ReturnType<typeof publicProfileOf> }
 type ReceiptBody = { id: number, profileId: number, readAt: string }
 export type BriefingAnswer
   = | { briefing: BriefingBody, receipt: ReceiptBody | null, caution: string }
@@ -216,13 +254,13 @@ export async function readBriefing(code: string, userId: number, opts: { at?: Da
   const profile = profileOf(row, airfield.id)
   const key = keyOf(profile.id, row.stamp, precision)
   const entry = briefingCache.get(key) ?? (await computeMany([{ key, precision, profile, airfield }])).get(key)!
-  const head = JSON.stringify({ at: at.toISOString(), generatedAt: now.toISOString(), profile: publicProfileOf(profile, now) })
+  const p = publicProfileOf(profile, now, at, opts.at != null)
+  const head = JSON.stringify({ at: at.toISOString(), atChosen: opts.at != null, generatedAt: now.toISOString(), profile: p })
   const receipt = row.r_id == null ? null : { id: row.r_id, profileId: profile.id, readAt: (row.r_read_at as Date).toISOString() }
   const receiptJson = JSON.stringify(receipt)
   const body = `{"briefing":${head.slice(0, -1)},${entry.restJson.slice(1)},"caution":${CAUTION_JSON},"receipt":${receiptJson}}`
   // Same profile version, same inputs, same status and receipt: the same briefing (the times in it aside).
-  const p = publicProfileOf(profile, now)
-  const etag = weakTag(`${key}|${p.status}|${p.supersededById}|${p.withdrawnReason}|${p.ageMinutes}|${receiptJson}|${opts.at ? at.toISOString() : ''}`)
+  const etag = weakTag(`${key}|${p.status}|${p.statusNow}|${p.supersededById}|${p.withdrawnReason}|${p.filedMinutesAgo}|${p.stale}|${receiptJson}|${opts.at ? at.toISOString() : ''}`)
   return { kind: 'briefing', body, etag, profileId: profile.id }
 }
 
