@@ -1,13 +1,13 @@
 import { afterAll, describe, expect, it } from 'vitest'
 import { ApiClient, signedIn } from '../support/api'
-import { closeDb, makeAirfield, uniqueCode } from '../support/airfields'
+import { closeDb, makeAirfield, uniqueCode, unusedCode } from '../support/airfields'
 
 afterAll(closeDb)
 
 describe('airfields and runways', () => {
   it('creates an airfield (code upper-cased, elevation in ft kept as m) with the magnetic variation for today and its date', async () => {
     const dispatcher = await signedIn('dispatcher')
-    const code = uniqueCode()
+    const code = await unusedCode()
     const res = await dispatcher.post('/api/airfields', {
       code: code.toLowerCase(), name: 'Test valley', latitudeDeg: 46.2, longitudeDeg: 7.3, elevation: 1000, elevationUnit: 'ft',
     })
@@ -90,7 +90,7 @@ describe('airfields and runways', () => {
 
   it('computes the true bearing from threshold coordinates and flags a designator far from the magnetic heading', async () => {
     const dispatcher = await signedIn('dispatcher')
-    const code = uniqueCode()
+    const code = await unusedCode()
     expect((await dispatcher.post('/api/airfields', { code, name: 'Geodesic test', latitudeDeg: 18.7253, longitudeDeg: 0.0033, elevation: 100, elevationUnit: 'm' })).status).toBe(201)
     // Karney's GeodTest data, a short line (lat1 lon1 azi1 lat2 lon2 azi2 s12), quoted in DOMAIN.md:
     // 18.725775553796 0 98.927919777265 18.724785210853172866 .006615636046166963 98.930043600815390181 706.2676803

@@ -139,7 +139,7 @@ function rawPost(path: string, headers: Record<string, string>, chunks: Buffer[]
       res.on('error', () => resolve({ status: res.statusCode!, body }))
     })
     req.on('error', (err) => {
-      if (!answered) setTimeout(() => (answered ? undefined : reject(err)), 3000)
+      if (!answered) setTimeout(() => (answered ? undefined : reject(err)), 10_000)
     })
     let i = 0
     const next = (err?: Error | null) => {

@@ -8,6 +8,19 @@ export function uniqueCode(): string {
   return `XT${pick()}${pick()}`
 }
 
+/**
+ * A test code no airfield has yet (checked in the database): for tests that create an airfield themselves and
+ * expect 201. 676 XT codes fill up as the suites add airfields, so a random pick alone collides now and then.
+ */
+export async function unusedCode(): Promise<string> {
+  for (let attempt = 0; attempt < 200; attempt++) {
+    const code = uniqueCode()
+    const [rows] = await db().query('SELECT 1 FROM airfields WHERE code = ?', [code])
+    if ((rows as unknown[]).length === 0) return code
+  }
+  throw new Error('no free test airfield code')
+}
+
 /** A fresh test airfield (unique code) with one runway 18/36 of entered true headings 180/360. */
 export async function makeAirfield(client: ApiClient, extra: Record<string, unknown> = {}) {
   for (let attempt = 0; attempt < 20; attempt++) {

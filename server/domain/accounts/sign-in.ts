@@ -31,7 +31,8 @@ const RESET_MAX_PER_WINDOW = 3
 
 /**
  * Sends a reset link when the address has a usable account, at most 3 per account per 15 minutes so the address
- * cannot be flooded. The caller's answer is the same either way; an unknown address takes the same reads.
+ * cannot be flooded. The route answers before this runs (`event.waitUntil`), so neither the answer nor its timing
+ * tells whether the address has an account. Each request for an account is audited, with whether a link went out.
  */
 export async function requestPasswordReset(email: string, appUrl: string) {
   await useDB().transaction(async (tx) => {
@@ -39,9 +40,14 @@ export async function requestPasswordReset(email: string, appUrl: string) {
     const t = schema.userTokens
     const [recent] = await tx.select({ n: sql<number>`COUNT(*)` }).from(t)
       .where(and(eq(t.userId, user?.id ?? 0), eq(t.purpose, 'password-reset'), gte(t.createdAt, new Date(Date.now() - RESET_WINDOW_MS))))
-    if (!user || user.disabled || !user.passwordHash) return
-    if (Number(recent?.n ?? 0) >= RESET_MAX_PER_WINDOW) return
-    await issueToken(tx, 'password-reset', user, appUrl)
-    await recordAudit(tx, { label: 'password-reset request', userId: user.id }, 'user.request-reset', 'user', user.id)
+    if (!user) return
+    const usable = !user.disabled && Boolean(user.passwordHash)
+    const withinLimit = Number(recent?.n ?? 0) < RESET_MAX_PER_WINDOW
+    if (usable && withinLimit) await issueToken(tx, 'password-reset', user, appUrl)
+    await recordAudit(tx, { label: 'password-reset request', userId: user.id }, 'user.request-reset', 'user', user.id, {
+      linkSent: usable && withinLimit,
+      ...(usable ? {} : { why: user.disabled ? 'account disabled' : 'no password yet (invitation pending)' }),
+      ...(usable && !withinLimit ? { why: `already ${RESET_MAX_PER_WINDOW} links in ${RESET_WINDOW_MS / 60_000} minutes` } : {}),
+    })
   })
 }
