@@ -33,6 +33,11 @@ export default defineNuxtConfig({
       dirsScanOptions: { fileFilter: (file: string) => !/server[/\\]utils[/\\][^/\\]+[/\\]/.test(file) },
     },
   },
+  vite: {
+    // Fonts are served as files from our own origin: Vite would inline the small subsets as data: URIs, which the
+    // CSP's font-src 'self' blocks (tests/browser/security-csp.test.ts caught it).
+    build: { assetsInlineLimit: (file: string) => (/\.(woff2?|ttf|otf)$/i.test(file) ? false : undefined) },
+  },
   typescript: { strict: true, typeCheck: false },
   telemetry: false,
   hooks: {
