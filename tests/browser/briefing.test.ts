@@ -29,7 +29,8 @@ describe('the briefing page', () => {
     const b = api.body.briefing
     const card = page.locator('[data-test=runway-card][data-designator="22"]')
     const svg = card.locator('[data-test=polar-svg]')
-    expect(await svg.locator('[data-test=polar-ring]').count()).toBeGreaterThanOrEqual(2)
+    // The display is drawn once the page has hydrated: wait for it rather than count at once.
+    await expect.poll(() => svg.locator('[data-test=polar-ring]').count(), { timeout: 15_000 }).toBeGreaterThanOrEqual(2)
     expect((await svg.locator('[data-test=polar-ring-label]').first().textContent())?.trim()).toMatch(/^\d+ kt$/)
     expect(await svg.locator('[data-test=polar-axis] line').count()).toBeGreaterThan(0)
     const axisText = (await svg.locator('[data-test=polar-axis] text').allTextContents()).map(t => t.trim())
