@@ -26,7 +26,7 @@ export default defineConfig({
         },
       }),
       { extends: true, test: { name: 'api', include: ['tests/api/**/*.test.ts'], testTimeout: 30_000, hookTimeout: 60_000 } },
-      { extends: true, test: { name: 'browser', include: ['tests/browser/**/*.test.ts'], testTimeout: 60_000, hookTimeout: 60_000 } },
+      { extends: true, test: { name: 'browser', include: ['tests/browser/**/*.test.ts'], testTimeout: 180_000, hookTimeout: 60_000 } },
     ],
   },
 })

@@ -38,8 +38,8 @@ export async function signInPage(page: Page, role: keyof typeof DEMO) {
 
 export async function screenshot(page: Page, name: string) {
   mkdirSync(OUTPUT_DIR, { recursive: true })
-  // A full-page shot of a long page (the mailbox holds every message) can take long on a loaded machine.
-  await page.screenshot({ path: join(OUTPUT_DIR, `${name}.png`), fullPage: true, timeout: 120_000 })
+  // A full-page shot of a long page (the mailbox holds every message) can take long on a loaded machine (the browser tests' ceiling is 180 s).
+  await page.screenshot({ path: join(OUTPUT_DIR, `${name}.png`), fullPage: true, timeout: 90_000 })
 }
 
 export type { Browser, BrowserContext, Page }
