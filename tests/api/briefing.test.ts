@@ -109,7 +109,9 @@ describe('GET /api/airfields/{code}/briefing', () => {
     expect(new Date(p.validFrom).getTime()).toBeLessThanOrEqual(new Date(at).getTime())
     expect(new Date(p.validTo).getTime()).toBeGreaterThanOrEqual(new Date(at).getTime())
     expect(p.validFrom).toBe(`${day}T06:00:00.000Z`)
-    if (new Date(p.validTo).getTime() < Date.now()) expect(p.status).toBe('expired')
+    // Status at the chosen time (issue 12): valid at 06:30; where it stands now is statusNow.
+    expect(p.status).toBe('current')
+    if (new Date(p.validTo).getTime() < Date.now()) expect(p.statusNow).toBe('expired')
     expect(now.body.briefing.profile.status).toBe('current')
   })
 
