@@ -5,8 +5,7 @@ import { sessionUserOrEnd } from '../domain/accounts/session-store'
 import { eq, schema, useDB } from './db'
 import type { FilingActor } from '../domain/profiles/filing'
 import { sha256Hex } from '../domain/accounts/api-tokens'
-
-const unauthorised = (statusMessage: string) => createError({ statusCode: 401, statusMessage })
+import { forbidden, unauthorised } from './errors'
 
 /**
  * Who is asking: the signed-in user as the database knows them now, through a session that still holds
@@ -24,10 +23,7 @@ export async function requireUser(event: H3Event): Promise<User> {
 export async function requireCapability(event: H3Event, capability: Capability): Promise<User> {
   const user = await requireUser(event)
   if (!can(user, capability)) {
-    throw createError({
-      statusCode: 403,
-      statusMessage: `This needs the role ${rolesWith(capability).join(' or ')}; you are signed in as ${user.role}`,
-    })
+    throw forbidden(`This needs the role ${rolesWith(capability).join(' or ')}; you are signed in as ${user.role}`)
   }
   return user
 }
@@ -54,7 +50,7 @@ export async function requireFiler(event: H3Event): Promise<FilingActor> {
   if (token.revokedAt) throw unauthorised(`This API token was revoked on ${token.revokedAt.toISOString()}`)
   const [user] = await db.select().from(schema.users).where(eq(schema.users.id, token.createdByUserId))
   if (!user || user.disabled || !can(user, 'file-profile')) {
-    throw createError({ statusCode: 403, statusMessage: 'The person who made this API token may no longer file profiles' })
+    throw forbidden('The person who made this API token may no longer file profiles')
   }
   await db.update(schema.apiTokens).set({ lastUsedAt: new Date() }).where(eq(schema.apiTokens.id, token.id))
   return { user, token: { id: token.id, name: token.name } }

@@ -1,9 +1,10 @@
 // Briefings from the analysis cache: trade precision at the boundary, thinned display levels, ETag/304, and never
 // a stale briefing after an edit made on another instance.
-import { spawn, type ChildProcess } from 'node:child_process'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { ApiClient, signedIn } from '../support/api'
+import type { ApiClient } from '../support/api'
+import { signedIn } from '../support/api'
 import { closeDb, makeAirfield, profileBody } from '../support/airfields'
+import { startSecondInstance, type SecondInstance } from '../support/instance'
 
 afterAll(closeDb)
 
@@ -91,29 +92,13 @@ describe('ETag on briefings', () => {
 })
 
 describe('the cache never serves a stale briefing after an edit on another instance', () => {
-  let second: ChildProcess
+  let second: SecondInstance
   let viaSecond: ApiClient
-  const port2 = process.env.VEERLINE_PORT_2
   beforeAll(async () => {
-    expect(port2, 'VEERLINE_PORT_2 is set by scripts/test.sh').toBeTruthy()
-    second = spawn(process.execPath, ['.output/server/index.mjs'], {
-      env: { ...process.env, PORT: port2, NITRO_PORT: port2, HOST: '127.0.0.1', NITRO_HOST: '127.0.0.1', VEERLINE_OUTBOX_WORKER: '0' },
-      stdio: 'ignore',
-    })
-    for (let i = 0; i < 100; i++) {
-      try {
-        if ((await fetch(`http://127.0.0.1:${port2}/healthz`)).ok) break
-      }
-      catch { /* not up yet */ }
-      await new Promise(r => setTimeout(r, 200))
-    }
-    viaSecond = new ApiClient(`http://127.0.0.1:${port2}`)
-    await viaSecond.signIn('admin@veerline.example')
+    second = await startSecondInstance('admin@veerline.example')
+    viaSecond = second.client
   })
-  afterAll(async () => {
-    second.kill('SIGTERM')
-    await new Promise(r => second.exitCode != null ? r(null) : second.once('exit', r))
-  })
+  afterAll(() => second?.stop())
 
   async function fieldWithProfile() {
     const dispatcher = await signedIn('dispatcher')

@@ -1,9 +1,9 @@
 // The briefing at the point of use: status and ages at the chosen time, key heights at exact round values, the
 // verdict, the change against the superseded profile, and the live event stream across two app instances.
-import { spawn, type ChildProcess } from 'node:child_process'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { ApiClient, signedIn } from '../support/api'
 import { closeDb, makeAirfield, profileBody } from '../support/airfields'
+import { startSecondInstance, type SecondInstance } from '../support/instance'
 
 afterAll(closeDb)
 
@@ -258,29 +258,13 @@ function openStream(client: ApiClient, code: string, headers: Record<string, str
 }
 
 describe('GET /api/airfields/{code}/events', () => {
-  let second: ChildProcess
+  let second: SecondInstance
   let viaSecond: ApiClient
-  const port2 = process.env.VEERLINE_PORT_2
   beforeAll(async () => {
-    expect(port2, 'VEERLINE_PORT_2 is set by scripts/test.sh').toBeTruthy()
-    second = spawn(process.execPath, ['.output/server/index.mjs'], {
-      env: { ...process.env, PORT: port2, NITRO_PORT: port2, HOST: '127.0.0.1', NITRO_HOST: '127.0.0.1', VEERLINE_OUTBOX_WORKER: '0' },
-      stdio: 'ignore',
-    })
-    for (let i = 0; i < 100; i++) {
-      try {
-        if ((await fetch(`http://127.0.0.1:${port2}/healthz`)).ok) break
-      }
-      catch { /* not up yet */ }
-      await new Promise(r => setTimeout(r, 200))
-    }
-    viaSecond = new ApiClient(`http://127.0.0.1:${port2}`)
-    await viaSecond.signIn('dispatch@veerline.example')
+    second = await startSecondInstance('dispatch@veerline.example')
+    viaSecond = second.client
   })
-  afterAll(async () => {
-    second?.kill('SIGTERM')
-    await new Promise(r => second.exitCode != null ? r(null) : second.once('exit', r))
-  })
+  afterAll(() => second?.stop())
 
   it('asks who is asking first (401), then the code (422, 404)', async () => {
     expect((await new ApiClient().get('/api/airfields/XVAL/events')).status).toBe(401)
