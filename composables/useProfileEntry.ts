@@ -6,6 +6,8 @@ import { M_PER_FT } from '#shared/units'
 export type HeightKey = 'heightM' | 'heightFt' | 'pressureHpa'
 export type SpeedKey = 'speedKt' | 'speedMps'
 type LevelDraft = Record<string, number | undefined>
+/** What the coded-report paste hands over: the text as pasted, the server's warnings, the reports' validity. */
+export type CodedChoice = { text: string, warnings: { line: number, message: string }[], validity: { validFrom: string, validTo: string } | null }
 
 const HEIGHT_LABEL: Record<HeightKey, string> = { heightM: 'm', heightFt: 'ft', pressureHpa: 'hPa' }
 const gustKeyOf = (speed: SpeedKey) => (speed === 'speedKt' ? 'gustKt' : 'gustMps')
@@ -40,6 +42,11 @@ export function levelsFromCoded(levels: Record<string, number>[]): LevelDraft[] 
     speedKt: l.speedKt,
     ...(l.gustKt === undefined ? {} : { gustKt: l.gustKt }),
   }))
+}
+
+/** The query of the airfield page after filing: its notice reads "Profile #N filed, supersedes #M, K alerts raised". */
+export function filedNoticeQuery(res: { profile: { id: number, supersededIds: number[] }, alertsRaised: number }) {
+  return { filed: String(res.profile.id), supersedes: res.profile.supersededIds.join(',') || undefined, alerts: String(res.alertsRaised) }
 }
 
 /**
@@ -79,15 +86,25 @@ export function useProfileEntry(code: string, options: { now?: number, previewDe
   const entry = ref<'table' | 'coded'>('table')
   watch(() => ({ ...units }), (now, before) => replace(fields.value.map(f => rekeyLevel(f.value, before, now))))
 
-  function sortLevels() {
-    const rows = fields.value.map(f => f.value)
-    const sorted = sortedLevels(rows, units.height)
-    if (sorted.some((r, i) => r !== rows[i])) replace(sorted)
-  }
   function addLevel() {
     push({ [units.height]: undefined, directionDeg: undefined, [units.speed]: undefined })
   }
-  async function fromCoded(levels: Record<string, number>[]) {
+  // The coded reports the levels came from: kept with the profile; their warnings need confirming before filing.
+  const coded = ref<CodedChoice | null>(null)
+  const confirmCoded = ref(false)
+  // The server refused the filing until the warnings are confirmed: the box with the tick is marked.
+  const confirmAsked = ref(false)
+  async function fromCoded(levels: Record<string, number>[], choice?: CodedChoice) {
+    if (choice) {
+      coded.value = choice
+      confirmCoded.value = false
+      form.setFieldValue('source', 'coded-report')
+      form.setFieldValue('codedReport', { text: choice.text })
+      if (choice.validity) {
+        form.setFieldValue('validFrom', choice.validity.validFrom.replace('.000', ''))
+        form.setFieldValue('validTo', choice.validity.validTo.replace('.000', ''))
+      }
+    }
     units.height = 'heightM'
     units.speed = 'speedKt'
     // Let the unit change re-key the old rows first, then put the coded levels in their place.
@@ -96,24 +113,43 @@ export function useProfileEntry(code: string, options: { now?: number, previewDe
     entry.value = 'coded'
   }
 
-  const preview = useProfilePreview(code, () => ({ heightReference: form.values.heightReference, levels: form.values.levels as LevelDraft[] | undefined }), { debounceMs: options.previewDebounceMs })
+  // The rows stay where they were typed (a row never moves under the cursor); the preview reads them in height order.
+  const preview = useProfilePreview(code, () => ({
+    heightReference: form.values.heightReference,
+    levels: form.values.levels ? sortedLevels(form.values.levels as LevelDraft[], units.height) : undefined,
+  }), { debounceMs: options.previewDebounceMs })
+
+  /** Puts the rows in height order, as they will be filed: done when filing, so the server's row numbers match the table. */
+  function sortRows() {
+    const rows = fields.value.map(f => f.value)
+    const sorted = sortedLevels(rows, units.height)
+    if (sorted.some((r, i) => r !== rows[i])) replace(sorted)
+  }
 
   const failure = ref('')
   const failureIssues = ref<{ field: string, message: string }[]>([])
-  const submit = form.handleSubmit(async (body) => {
+  const file = form.handleSubmit(async (body) => {
     failure.value = ''
     failureIssues.value = []
     try {
-      await $api(`/api/airfields/${code}/profiles`, { method: 'POST', query: { entry: entry.value }, body })
-      await navigateTo(`/airfields/${code}`)
+      const codedReport = body.source === 'coded-report' && coded.value ? { text: coded.value.text, confirmWarnings: confirmCoded.value } : undefined
+      const res = await $api(`/api/airfields/${code}/profiles`, { method: 'POST', query: { entry: entry.value }, body: { ...body, codedReport } })
+      await navigateTo({ path: `/airfields/${code}`, query: filedNoticeQuery(res) })
     }
     catch (err) {
       const f = fetchFailure(err, 'The profile was not filed')
-      failure.value = f.message
+      // The server's message repeats its issues with their API paths: with issues, keep its first words and show
+      // the issues themselves beside their fields.
+      failure.value = f.issues.length ? f.message.split(': ')[0]! : f.message
+      const confirm = f.issues.some(i => i.field === 'codedReport.confirmWarnings')
+      confirmAsked.value = confirm
+      if (confirm) failure.value = 'Not filed yet: the reports need confirming. Read the warnings above and tick the box to file them anyway'
       // Issues land beside their cells (`levels[1].directionDeg`); the rest are listed under the message.
-      const known = new Set([...fields.value.flatMap((row, i) => Object.keys(row.value).map(k => `levels[${i}].${k}`)), 'validFrom', 'validTo', 'source', 'heightReference', 'notes', 'levels'])
+      const known = new Set([...fields.value.flatMap((row, i) => Object.keys(row.value).map(k => `levels[${i}].${k}`)), 'validFrom', 'validTo', 'source', 'heightReference', 'notes', 'levels', 'codedReport'])
       const isFormPath = (path: string): path is FormPath => known.has(path)
       failureIssues.value = f.issues.filter((issue) => {
+        // The confirmation warnings are the ones listed in the box with the tick.
+        if (issue.field === 'codedReport.confirmWarnings') return false
         const path = formPath(issue.field)
         if (!isFormPath(path)) return true
         form.setFieldError(path, issue.message)
@@ -121,12 +157,17 @@ export function useProfileEntry(code: string, options: { now?: number, previewDe
       })
     }
   })
+  async function submit() {
+    sortRows()
+    await nextTick()
+    await file()
+  }
   const header = computed(() => ({ validFrom: form.values.validFrom, validTo: form.values.validTo, source: form.values.source, heightReference: form.values.heightReference, notes: form.values.notes }))
 
   return {
     errors: form.errors, values: form.values, isSubmitting: form.isSubmitting,
     fields, remove, source, heightReference, notes, validFrom, validTo, setTime,
-    units, gustKey, unitLabels, entry, sortLevels, addLevel, fromCoded,
+    units, gustKey, unitLabels, entry, sortRows, addLevel, fromCoded, coded, confirmCoded, confirmAsked,
     preview, submit, failure, failureIssues, header,
   }
 }

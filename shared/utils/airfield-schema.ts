@@ -23,6 +23,10 @@ const airfieldShape = {
   magVarOverrideDeg: deg('Magnetic variation', 180).nullable().optional(),
   magVarOverrideReason: z.string().trim().max(255, 'Reason: at most 255 characters').nullable().optional(),
   notes: z.string().max(4000, 'Notes: at most 4000 characters').nullable().optional(),
+  // The location indicator its coded reports carry; empty or null: the airfield's own code.
+  reportingStation: z.string().trim().transform(s => s.toUpperCase())
+    .refine(s => s === '' || /^[A-Z][A-Z0-9]{3}$/.test(s), 'Reporting station must be a four-character location indicator, e.g. XVAL')
+    .transform(s => s || null).nullable().optional(),
 }
 
 type AirfieldFields = { elevation?: number, elevationUnit?: 'ft' | 'm', magVarOverrideDeg?: number | null, magVarOverrideReason?: string | null }

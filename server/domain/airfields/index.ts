@@ -98,6 +98,8 @@ export function airfieldSummary(a: Airfield) {
     magVarOverrideDeg: a.magVarOverrideDeg,
     magVarOverrideReason: a.magVarOverrideReason,
     notes: a.notes,
+    // The station its coded reports must name (its own code unless set).
+    reportingStation: a.reportingStation ?? a.code,
     updatedAt: a.updatedAt.toISOString(),
   }
 }

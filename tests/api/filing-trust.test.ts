@@ -1,0 +1,195 @@
+import { afterAll, describe, expect, it } from 'vitest'
+import { signedIn, type ApiClient } from '../support/api'
+import { closeDb, countRows, makeAirfield } from '../support/airfields'
+
+afterAll(closeDb)
+
+const minute = 60_000
+const utcStamp = (d: Date) => `${String(d.getUTCDate()).padStart(2, '0')}${String(d.getUTCHours()).padStart(2, '0')}${String(d.getUTCMinutes()).padStart(2, '0')}Z`
+const levels = [
+  { heightM: 10, directionDeg: 200, speedKt: 12 },
+  { heightM: 300, directionDeg: 240, speedKt: 30 },
+  { heightM: 600, directionDeg: 250, speedKt: 35 },
+]
+
+describe('supersession by time', () => {
+  it('20 parallel filings with shifted windows leave exactly one profile in force for every 5-minute slot', async () => {
+    const api = await signedIn('dispatcher')
+    const { code } = await makeAirfield(api)
+    const start = Math.ceil(Date.now() / (5 * minute)) * 5 * minute + 60 * minute
+    const windows = Array.from({ length: 20 }, (_, k) => ({ from: start + k * 15 * minute, to: start + k * 15 * minute + 90 * minute }))
+    const answers = await Promise.all(windows.map(w => api.post(`/api/airfields/${code}/profiles`, {
+      validFrom: new Date(w.from).toISOString(), validTo: new Date(w.to).toISOString(), source: 'estimate', heightReference: 'AGL', levels,
+    })))
+    expect(answers.map(a => a.status)).toEqual(windows.map(() => 201))
+    const filed = await Promise.all(answers.map(async a => (await api.get(`/api/profiles/${a.body.profile.id}`)).body.profile))
+    const end = windows[19]!.to
+    let slots = 0
+    for (let at = start + 2.5 * minute; at < end; at += 5 * minute) {
+      slots++
+      // In force from the records: valid then, not withdrawn, and no supersession period covering the moment.
+      const inForce = filed.filter(p => p.status !== 'withdrawn' && Date.parse(p.validFrom) <= at && at < Date.parse(p.validTo)
+        && !p.supersededPeriods.some((s: { from: string, to: string }) => Date.parse(s.from) <= at && at < Date.parse(s.to)))
+      expect(inForce, `slot at ${new Date(at).toISOString()}`).toHaveLength(1)
+      // ... it is the newest profile filed for that moment, and the briefing uses it.
+      const newest = Math.max(...filed.filter(p => Date.parse(p.validFrom) <= at && at < Date.parse(p.validTo)).map(p => p.id))
+      expect(inForce[0]!.id).toBe(newest)
+      if (slots % 12 === 1) {
+        const b = await api.get(`/api/airfields/${code}/briefing?at=${new Date(at).toISOString()}`)
+        expect(b.body.briefing.profile.id).toBe(newest)
+      }
+    }
+    expect(slots).toBe(75)
+  })
+
+  it('a later profile overlapping part of an active one leaves the older in force for the rest of its validity', async () => {
+    const api = await signedIn('dispatcher')
+    const { code } = await makeAirfield(api)
+    const t0 = Math.floor(Date.now() / minute) * minute + 30 * minute
+    const iso = (m: number) => new Date(t0 + m * minute).toISOString()
+    const first = await api.post(`/api/airfields/${code}/profiles`, { validFrom: iso(0), validTo: iso(180), source: 'estimate', heightReference: 'AGL', levels })
+    const second = await api.post(`/api/airfields/${code}/profiles`, { validFrom: iso(120), validTo: iso(300), source: 'estimate', heightReference: 'AGL', levels })
+    expect(second.body.profile.supersededIds).toEqual([first.body.profile.id])
+    const older = (await api.get(`/api/profiles/${first.body.profile.id}`)).body.profile
+    expect(older.status).toBe('active')
+    expect(older.supersededPeriods).toEqual([{ from: iso(120), to: iso(180), byId: second.body.profile.id }])
+    expect((await api.get(`/api/airfields/${code}/briefing?at=${iso(60)}`)).body.briefing.profile.id).toBe(first.body.profile.id)
+    expect((await api.get(`/api/airfields/${code}/briefing?at=${iso(150)}`)).body.briefing.profile.id).toBe(second.body.profile.id)
+  })
+})
+
+describe('the engine through the API', () => {
+  it('a gust on a calm mean keeps its direction: a 15 kt gust from 200° on runway 09 is 14.1 kt crosswind from the right, not a gust from the north', async () => {
+    const api = await signedIn('dispatcher')
+    const res = await api.post('/api/wind/preview', { heightReference: 'AGL', runwayEnds: [{ designator: '09', trueHeadingDeg: 90 }], levels: [{ heightM: 0, directionDeg: 200, speedKt: 0, gustKt: 15 }, { heightM: 300, directionDeg: 220, speedKt: 20 }] })
+    expect(res.status).toBe(200)
+    // 15·sin(200° - 90°) = 14.1 kt from the right (the issue's figure; V·sin θ).
+    expect(res.body.analysis.runwayEnds[0].surface.gustCrosswindKt).toBeCloseTo(14.1, 1)
+  })
+
+  it('qnhHpa lifts a 1000 hPa level of a sea-level field to 248.6 m (ICAO standard atmosphere referred to QNH)', async () => {
+    const api = await signedIn('dispatcher')
+    const body = { heightReference: 'AGL', elevationM: 0, runwayEnds: [{ designator: '18', trueHeadingDeg: 180 }], levels: [{ heightM: 0, directionDeg: 200, speedKt: 10 }, { pressureHpa: 1000, directionDeg: 230, speedKt: 25 }] }
+    const withQnh = await api.post('/api/wind/preview', { ...body, qnhHpa: 1030 })
+    expect(withQnh.body.analysis.levels[1].heightAglM).toBeCloseTo(248.6, 1)
+    const without = await api.post('/api/wind/preview', body)
+    expect(without.body.analysis.warnings.map((w: { message: string }) => w.message).join(' ')).toMatch(/no QNH given/)
+  })
+
+  it('files a profile with QNH and temperatures and keeps them; an MSL level 0.2 m below the elevation is the surface', async () => {
+    const api = await signedIn('dispatcher')
+    const { code } = await makeAirfield(api, { elevation: 457.2, elevationUnit: 'm' })
+    const start = new Date(Math.floor(Date.now() / minute) * minute)
+    const res = await api.post(`/api/airfields/${code}/profiles`, {
+      validFrom: start.toISOString(), validTo: new Date(start.getTime() + 3600_000).toISOString(), source: 'radiosonde', heightReference: 'MSL', qnhHpa: 1021,
+      levels: [{ heightM: 457, directionDeg: 200, speedKt: 8, temperatureC: 12 }, { pressureHpa: 925, temperatureC: 9, directionDeg: 230, speedKt: 25 }, { heightM: 1200, pressureHpa: 880, directionDeg: 250, speedKt: 30 }],
+    })
+    expect(res.status).toBe(201)
+    expect(res.body.warnings.map((w: { code: string }) => w.code)).toContain('surface-below-elevation')
+    const got = (await api.get(`/api/profiles/${res.body.profile.id}`)).body.profile
+    expect(got.qnhHpa).toBe(1021)
+    expect(got.levels[1]).toMatchObject({ pressureHpa: 925, temperatureC: 9 })
+    expect(got.levels[2]).toMatchObject({ heightM: 1200, pressureHpa: 880 })
+  })
+})
+
+describe('coded reports, checked and kept', () => {
+  async function setup() {
+    const api = await signedIn('dispatcher')
+    const { code } = await makeAirfield(api)
+    return { api, code }
+  }
+
+  it('POST /api/wind/coded with the airfield: another station and a seven-hour-old report are warnings', async () => {
+    const { api, code } = await setup()
+    const old = new Date(Date.now() - 7 * 3600_000)
+    const res = await api.post('/api/wind/coded', { airfield: code, text: `METAR XVAL ${utcStamp(old)} 23020KMH 9999 WS R18` })
+    expect(res.status).toBe(200)
+    const codes = res.body.warnings.map((w: { code: string }) => w.code)
+    expect(codes).toEqual(expect.arrayContaining(['other-station', 'report-old']))
+    expect(res.body.warnings[0].message).toContain(`not ${code}`)
+    // 23020KMH is read: 20 km/h = 10.8 kt (1 kt = 1.852 km/h)
+    expect(res.body.levels[0].speedKt).toBeCloseTo(10.8, 1)
+    expect(res.body.reports[0].runwayShear.groups).toEqual(['WS R18'])
+  })
+
+  it('00000G15KT is refused with the reason, WS LDG RWY18 is kept', async () => {
+    const { api, code } = await setup()
+    const bad = await api.post('/api/wind/coded', { airfield: code, text: `METAR ${code} ${utcStamp(new Date())} 00000G15KT 9999` })
+    expect(bad.status).toBe(422)
+    expect(JSON.stringify(bad.body.data.issues)).toMatch(/gust on a calm wind/)
+    const older = await api.post('/api/wind/coded', { airfield: code, text: `METAR ${code} ${utcStamp(new Date())} 18010KT 9999 WS LDG RWY18` })
+    expect(older.status).toBe(200)
+    expect(older.body.reports[0].runwayShear.runways).toEqual(['18'])
+  })
+
+  it('a report for another station is refused at filing until confirmed; then kept raw, with reported wind shear raising its own alert', async () => {
+    const { api, code } = await setup()
+    const now = new Date()
+    const text = `METAR XVAL ${utcStamp(now)} 18012KT 9999 WS R36`
+    const body = {
+      validFrom: new Date(now.getTime() - 5 * minute).toISOString(), validTo: new Date(now.getTime() + 55 * minute).toISOString(),
+      source: 'coded-report', heightReference: 'AGL', levels: [{ heightM: 10, directionDeg: 180, speedKt: 12 }, { heightM: 300, directionDeg: 200, speedKt: 20 }],
+      codedReport: { text },
+    }
+    const before = await countRows('profiles')
+    const refused = await api.post(`/api/airfields/${code}/profiles?entry=coded`, body)
+    expect(refused.status).toBe(422)
+    expect(refused.body.data.issues[0]).toMatchObject({ field: 'codedReport.confirmWarnings', line: 1 })
+    expect(await countRows('profiles')).toBe(before)
+    const filed = await api.post(`/api/airfields/${code}/profiles?entry=coded`, { ...body, codedReport: { text, confirmWarnings: true } })
+    expect(filed.status).toBe(201)
+    expect(filed.body.profile).toMatchObject({ source: 'coded-report', rawReport: text })
+    expect(filed.body.profile.reportedWindShear).toMatchObject({ allRunways: false, runways: ['36'], groups: ['WS R36'] })
+    expect(filed.body.alertsRaised).toBeGreaterThanOrEqual(1)
+    const briefing = (await api.get(`/api/airfields/${code}/briefing`)).body.briefing
+    expect(briefing.profile.rawReport).toBe(text)
+    // The limit checks are read per runway end in the default (trade precision) answer.
+    const checksOf = (d: string) => briefing.runwayEnds.find((e: { designator: string }) => e.designator === d).checks as { kind: string, state: string }[]
+    expect(checksOf('36').find(c => c.kind === 'reported-wind-shear')!.state).toBe('exceeded')
+    expect(checksOf('18').some(c => c.kind === 'reported-wind-shear')).toBe(false)
+    const safety = await signedIn('safety')
+    const alerts = (await safety.get(`/api/alerts?airfield=${code}&state=active`)).body.alerts
+    expect(alerts.some((a: { kind: string, designator: string }) => a.kind === 'reported-wind-shear' && a.designator === '36')).toBe(true)
+  })
+
+  it('source coded-report without the report lines is refused by name', async () => {
+    const { api, code } = await setup()
+    const now = new Date()
+    const res = await api.post(`/api/airfields/${code}/profiles`, { validFrom: now.toISOString(), validTo: new Date(now.getTime() + 3600_000).toISOString(), source: 'coded-report', heightReference: 'AGL', levels })
+    expect(res.status).toBe(422)
+    expect(res.body.data.issues.map((i: { field: string }) => i.field)).toContain('codedReport')
+  })
+
+  it('the reporting station is an airfield setting (default: its code)', async () => {
+    const { api, code } = await setup()
+    expect((await api.get(`/api/airfields/${code}`)).body.airfield.reportingStation).toBe(code)
+    const patched = await api.patch(`/api/airfields/${code}`, { reportingStation: 'xval' })
+    expect(patched.status).toBe(200)
+    const res = await api.post('/api/wind/coded', { airfield: code, text: `METAR XVAL ${utcStamp(new Date())} 18010KT` })
+    expect(res.body.warnings).toEqual([])
+    const bad = await api.patch(`/api/airfields/${code}`, { reportingStation: 'X1' })
+    expect(bad.status).toBe(422)
+    expect(bad.body.data.issues[0].field).toBe('reportingStation')
+  })
+})
+
+describe('the F-factor and the corridor on the briefing', () => {
+  it('shows the F-factor per runway end and path, and checks it against the 0.1 default limit (from memory)', async () => {
+    const api: ApiClient = await signedIn('dispatcher')
+    const { code } = await makeAirfield(api)
+    const now = new Date()
+    // A headwind on runway 18 collapsing from 80 kt at 100 m to calm at the ground: a strong performance loss on arrival.
+    const res = await api.post(`/api/airfields/${code}/profiles`, {
+      validFrom: new Date(now.getTime() - minute).toISOString(), validTo: new Date(now.getTime() + 3600_000).toISOString(), source: 'estimate', heightReference: 'AGL',
+      levels: [{ heightM: 0, directionDeg: 180, speedKt: 0 }, { heightM: 100, directionDeg: 180, speedKt: 80 }, { heightM: 600, directionDeg: 180, speedKt: 80 }],
+    })
+    expect(res.status).toBe(201)
+    const briefing = (await api.get(`/api/airfields/${code}/briefing`)).body.briefing
+    const end18 = briefing.runwayEnds.find((e: { designator: string }) => e.designator === '18')
+    expect(end18.fFactor.arrival.basis).toBe('horizontal-wind-only')
+    expect(end18.fFactor.arrival.maxF).toBeGreaterThan(0.1)
+    const check = end18.checks.find((c: { kind: string }) => c.kind === 'f-factor-arrival')
+    expect(check).toMatchObject({ limit: 0.1, state: 'exceeded', unit: 'F' })
+  })
+})
