@@ -1,4 +1,5 @@
 import { toTypedSchema } from '@vee-validate/zod'
+import { watchDebounced } from '@vueuse/core'
 import { useFieldArray, useForm } from 'vee-validate'
 import { profileInputSchema } from '#shared/utils/profile-schema'
 import { M_PER_FT } from '#shared/units'
@@ -6,8 +7,20 @@ import { M_PER_FT } from '#shared/units'
 export type HeightKey = 'heightM' | 'heightFt' | 'pressureHpa'
 export type SpeedKey = 'speedKt' | 'speedMps'
 type LevelDraft = Record<string, number | undefined>
-/** What the coded-report paste hands over: the text as pasted, the server's warnings, the reports' validity. */
-export type CodedChoice = { text: string, warnings: { line: number, message: string }[], validity: { validFrom: string, validTo: string } | null }
+/** A period of a pasted TAF (opening conditions, FM, BECMG) with the levels it gives. */
+export type CodedPeriodChoice = { group: string, from: string | null, to: string | null, levels: Record<string, number>[] }
+/**
+ * What the coded-report paste hands over: the text as pasted, the server's warnings, the reports' validity, and the
+ * periods of the first TAF (filed one profile each in one step).
+ */
+export type CodedChoice = {
+  text: string
+  warnings: { line: number, message: string }[]
+  validity: { validFrom: string, validTo: string } | null
+  taf?: { line: number, periods: CodedPeriodChoice[] } | null
+}
+/** An active profile the one being entered would supersede, for the time they share ([from, to)). */
+export type SupersedeChoice = { id: number, validFrom: string, validTo: string, from: string, to: string, whole: boolean }
 
 const HEIGHT_LABEL: Record<HeightKey, string> = { heightM: 'm', heightFt: 'ft', pressureHpa: 'hPa' }
 const gustKeyOf = (speed: SpeedKey) => (speed === 'speedKt' ? 'gustKt' : 'gustMps')
@@ -48,6 +61,15 @@ export function levelsFromCoded(levels: Record<string, number>[]): LevelDraft[] 
 export function filedNoticeQuery(res: { profile: { id: number, supersededIds: number[] }, alertsRaised: number }) {
   return { filed: String(res.profile.id), supersedes: res.profile.supersededIds.join(',') || undefined, alerts: String(res.alertsRaised) }
 }
+
+/** The same after filing one profile per TAF period: "Profiles #N1, #N2 filed, supersedes …, K alerts raised". */
+export function filedPeriodsNoticeQuery(res: { profiles: { profile: { id: number, supersededIds: number[] } }[], alertsRaised: number }) {
+  const filed = res.profiles.map(f => f.profile.id)
+  const supersedes = [...new Set(res.profiles.flatMap(f => f.profile.supersededIds))].filter(id => !filed.includes(id))
+  return { filed: filed.join(','), supersedes: supersedes.join(',') || undefined, alerts: String(res.alertsRaised) }
+}
+
+const heightKeyCm = (l: LevelDraft) => Math.round((l.heightM ?? (l.heightFt ?? 0) * M_PER_FT) * 100)
 
 /**
  * The profile entry of an airfield: the form (the API's own schema), the level table in the units the dispatcher
@@ -92,6 +114,8 @@ export function useProfileEntry(code: string, options: { now?: number, previewDe
   // The coded reports the levels came from: kept with the profile; their warnings need confirming before filing.
   const coded = ref<CodedChoice | null>(null)
   const confirmCoded = ref(false)
+  // The levels the reports gave (the rest of the table the dispatcher added).
+  const codedLevels = ref<Record<string, number>[]>([])
   // The server refused the filing until the warnings are confirmed: the box with the tick is marked.
   const confirmAsked = ref(false)
   async function fromCoded(levels: Record<string, number>[], choice?: CodedChoice) {
@@ -109,9 +133,25 @@ export function useProfileEntry(code: string, options: { now?: number, previewDe
     units.speed = 'speedKt'
     // Let the unit change re-key the old rows first, then put the coded levels in their place.
     await nextTick()
+    codedLevels.value = levels
     replace(levelsFromCoded(levels))
     entry.value = 'coded'
   }
+
+  // Before filing: which active profiles the validity as typed would supersede (asked again when it changes).
+  const supersedes = ref<SupersedeChoice[] | null>(null)
+  watchDebounced(() => [form.values.validFrom, form.values.validTo] as const, async ([from, to]) => {
+    if (!from || !to || !(Date.parse(to) > Date.parse(from))) {
+      supersedes.value = null
+      return
+    }
+    try {
+      supersedes.value = (await $api(`/api/airfields/${code}/profiles/supersedes`, { query: { validFrom: from, validTo: to } })).supersedes
+    }
+    catch {
+      supersedes.value = null
+    }
+  }, { debounce: options.previewDebounceMs ?? 400, immediate: true })
 
   // The rows stay where they were typed (a row never moves under the cursor); the preview reads them in height order.
   const preview = useProfilePreview(code, () => ({
@@ -162,12 +202,46 @@ export function useProfileEntry(code: string, options: { now?: number, previewDe
     await nextTick()
     await file()
   }
+
+  /**
+   * Files one profile per period of the pasted TAF in one step (all or none): each period's own surface wind and WS
+   * levels, with the levels the dispatcher added to the table (those not read from the reports) above them.
+   */
+  const filingPeriods = ref(false)
+  async function filePeriods() {
+    const taf = coded.value?.taf
+    if (!taf) return
+    failure.value = ''
+    failureIssues.value = []
+    filingPeriods.value = true
+    try {
+      const fromReports = new Set(levelsFromCoded(codedLevels.value).map(heightKeyCm))
+      const levelsAloft = (form.values.levels as LevelDraft[] | undefined ?? [])
+        .filter(l => !fromReports.has(heightKeyCm(l)))
+        .map(l => Object.fromEntries(Object.entries(l).filter(([, v]) => v !== undefined && Number.isFinite(v))))
+      const res = await $api(`/api/airfields/${code}/profiles/periods`, {
+        method: 'POST',
+        body: { text: coded.value!.text, line: taf.line, confirmWarnings: confirmCoded.value, levelsAloft, ...(form.values.notes ? { notes: form.values.notes } : {}) },
+      })
+      await navigateTo({ path: `/airfields/${code}`, query: filedPeriodsNoticeQuery(res) })
+    }
+    catch (err) {
+      const f = fetchFailure(err, 'The periods were not filed')
+      const confirm = f.issues.some(i => i.field === 'codedReport.confirmWarnings')
+      confirmAsked.value = confirm
+      failure.value = confirm ? 'Not filed yet: the reports need confirming. Read the warnings above and tick the box to file them anyway' : (f.issues.length ? f.message.split(': ')[0]! : f.message)
+      failureIssues.value = f.issues.filter(i => i.field !== 'codedReport.confirmWarnings')
+    }
+    finally {
+      filingPeriods.value = false
+    }
+  }
   const header = computed(() => ({ validFrom: form.values.validFrom, validTo: form.values.validTo, source: form.values.source, heightReference: form.values.heightReference, notes: form.values.notes }))
 
   return {
     errors: form.errors, values: form.values, isSubmitting: form.isSubmitting,
     fields, remove, source, heightReference, notes, validFrom, validTo, setTime,
     units, gustKey, unitLabels, entry, sortRows, addLevel, fromCoded, coded, confirmCoded, confirmAsked,
-    preview, submit, failure, failureIssues, header,
+    preview, submit, failure, failureIssues, header, supersedes, filePeriods, filingPeriods,
   }
 }

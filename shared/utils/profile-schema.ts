@@ -80,6 +80,8 @@ const profileHeaderShape = {
   codedReport: z.object({
     text: z.string({ required_error: 'Paste the report lines' }).min(1, 'Paste the report lines').max(20_000, 'At most 20,000 characters'),
     confirmWarnings: z.boolean().optional(),
+    // A profile for one period of a TAF (POST .../profiles/periods): its line and the period's place.
+    period: z.object({ line: z.number().int().min(1), index: z.number().int().min(0) }).strict().optional(),
   }).strict().optional(),
 }
 

@@ -193,3 +193,99 @@ describe('the F-factor and the corridor on the briefing', () => {
     expect(check).toMatchObject({ limit: 0.1, state: 'exceeded', unit: 'F' })
   })
 })
+
+describe('TAF periods filed in one step', () => {
+  const hh = (d: Date) => `${String(d.getUTCDate()).padStart(2, '0')}${String(d.getUTCHours()).padStart(2, '0')}`
+  it('FM and BECMG each give a profile over their period with their own surface wind (and WS group); TEMPO is only a note', async () => {
+    const api = await signedIn('dispatcher')
+    const { code } = await makeAirfield(api)
+    const start = new Date(Math.floor(Date.now() / 3600_000) * 3600_000)
+    const at = (h: number) => new Date(start.getTime() + h * 3600_000)
+    // The TAF layout of ICAO Annex 3 / WMO-No. 306 FM 51 (from memory): validity ddhh/ddhh, FMddhhmm, BECMG and TEMPO
+    // with ddhh/ddhh; WShhh/dddffKT a wind shear level aloft (hhh in hundreds of feet).
+    const text = `TAF ${code} ${utcStamp(new Date())} ${hh(at(0))}/${hh(at(24))} 18010KT 9999 WS020/24040KT `
+      + `FM${hh(at(6))}00 22015KT 9999 WS R18 BECMG ${hh(at(12))}/${hh(at(14))} 25020KT TEMPO ${hh(at(16))}/${hh(at(18))} 27030G45KT`
+    const evaluations = () => countRows('audit_log',
+      'action = \'alerts.evaluate\' AND entity_type = \'airfield\' AND entity_id = (SELECT CAST(id AS CHAR) FROM airfields WHERE code = ?)', [code])
+    const before = await evaluations()
+    const res = await api.post(`/api/airfields/${code}/profiles/periods`, { text, levelsAloft: [{ heightM: 300, directionDeg: 260, speedKt: 30 }] })
+    expect(res.status).toBe(201)
+    const filed = res.body.profiles.map((f: { profile: any }) => f.profile)
+    expect(filed.map((p: any) => [p.validFrom, p.validTo])).toEqual([
+      [at(0).toISOString(), at(6).toISOString()], [at(6).toISOString(), at(12).toISOString()], [at(12).toISOString(), at(24).toISOString()],
+    ])
+    const surface = (p: any) => p.levels.find((l: any) => l.heightM === 10)
+    expect(filed.map((p: any) => [surface(p).directionDeg, surface(p).speedKt])).toEqual([[180, 10], [220, 15], [250, 20]])
+    // WS020: a level at 2,000 ft in the opening period only; the table's 300 m level in every one.
+    expect(filed[0].levels.find((l: any) => l.heightFt === 2000)).toMatchObject({ directionDeg: 240, speedKt: 40 })
+    expect(filed[1].levels.some((l: any) => l.heightFt === 2000)).toBe(false)
+    for (const p of filed) expect(p.levels.find((l: any) => l.heightM === 300)).toMatchObject({ directionDeg: 260, speedKt: 30 })
+    // WS R18 belongs to the FM period (and BECMG carries it on, as it does not change it).
+    expect(filed[0].reportedWindShear).toBeNull()
+    expect(filed[1].reportedWindShear).toMatchObject({ runways: ['18'], groups: ['WS R18'] })
+    expect(filed[2].reportedWindShear).toMatchObject({ runways: ['18'] })
+    expect(filed.every((p: any) => p.source === 'coded-report' && p.rawReport === text)).toBe(true)
+    expect(filed[2].notes).toContain('BECMG')
+    // One evaluation per profile filed.
+    expect(await evaluations() - before).toBe(3)
+    expect(res.body.alertsRaised).toBe(res.body.profiles.reduce((n: number, f: { alertsRaised: number }) => n + f.alertsRaised, 0))
+  })
+
+  it('a refused period refuses them all, naming the period; nothing is saved', async () => {
+    const api = await signedIn('dispatcher')
+    const { code } = await makeAirfield(api)
+    const start = new Date(Math.floor(Date.now() / 3600_000) * 3600_000)
+    const at = (h: number) => new Date(start.getTime() + h * 3600_000)
+    // The FM period's surface wind alone is one level: a profile needs two.
+    const text = `TAF ${code} ${utcStamp(new Date())} ${hh(at(0))}/${hh(at(12))} 18010KT 9999 WS020/24040KT FM${hh(at(6))}00 22015KT 9999`
+    const before = await countRows('profiles')
+    const res = await api.post(`/api/airfields/${code}/profiles/periods`, { text })
+    expect(res.status).toBe(422)
+    expect(res.body.data.issues[0].field).toMatch(/^periods\[1\]\.levels/)
+    expect(res.body.data.issues[0].message).toContain(`FM${hh(at(6))}00`)
+    expect(await countRows('profiles')).toBe(before)
+    const notTaf = await api.post(`/api/airfields/${code}/profiles/periods`, { text: `METAR ${code} ${utcStamp(new Date())} 18010KT` })
+    expect(notTaf.status).toBe(422)
+    expect(notTaf.body.data.issues[0].message).toContain('No TAF')
+  })
+
+  it('a TAF for another station needs confirming, as a single filing does', async () => {
+    const api = await signedIn('dispatcher')
+    const { code } = await makeAirfield(api)
+    const start = new Date(Math.floor(Date.now() / 3600_000) * 3600_000)
+    const at = (h: number) => new Date(start.getTime() + h * 3600_000)
+    const text = `TAF XVAL ${utcStamp(new Date())} ${hh(at(0))}/${hh(at(12))} 18010KT 9999 WS020/24040KT`
+    const refused = await api.post(`/api/airfields/${code}/profiles/periods`, { text })
+    expect(refused.status).toBe(422)
+    expect(refused.body.data.issues[0]).toMatchObject({ field: 'codedReport.confirmWarnings', line: 1 })
+    const filed = await api.post(`/api/airfields/${code}/profiles/periods`, { text, confirmWarnings: true })
+    expect(filed.status).toBe(201)
+    expect(filed.body.profiles).toHaveLength(1)
+  })
+})
+
+describe('before filing: what the new profile will supersede', () => {
+  it('names each active profile it would take over, for which time, and whether wholly; saves nothing', async () => {
+    const api = await signedIn('dispatcher')
+    const { code } = await makeAirfield(api)
+    const t0 = Math.floor(Date.now() / minute) * minute + 30 * minute
+    const iso = (m: number) => new Date(t0 + m * minute).toISOString()
+    const a = await api.post(`/api/airfields/${code}/profiles`, { validFrom: iso(0), validTo: iso(120), source: 'estimate', heightReference: 'AGL', levels })
+    const b = await api.post(`/api/airfields/${code}/profiles`, { validFrom: iso(120), validTo: iso(240), source: 'estimate', heightReference: 'AGL', levels })
+    const before = await countRows('profile_supersessions')
+    const res = await api.get(`/api/airfields/${code}/profiles/supersedes?validFrom=${iso(60)}&validTo=${iso(240)}`)
+    expect(res.status).toBe(200)
+    expect(res.body.supersedes).toEqual([
+      { id: a.body.profile.id, validFrom: iso(0), validTo: iso(120), from: iso(60), to: iso(120), whole: false },
+      { id: b.body.profile.id, validFrom: iso(120), validTo: iso(240), from: iso(120), to: iso(240), whole: true },
+    ])
+    expect(await countRows('profile_supersessions')).toBe(before)
+    // ... and the filing then does just that.
+    const filed = await api.post(`/api/airfields/${code}/profiles`, { validFrom: iso(60), validTo: iso(240), source: 'estimate', heightReference: 'AGL', levels })
+    expect(filed.body.profile.supersededIds).toEqual([a.body.profile.id, b.body.profile.id])
+    const bad = await api.get(`/api/airfields/${code}/profiles/supersedes?validFrom=${iso(60)}&validTo=${iso(0)}`)
+    expect(bad.status).toBe(422)
+    expect(bad.body.data.issues[0].field).toBe('validTo')
+    expect((await (await signedIn('pilot')).get(`/api/airfields/${code}/profiles/supersedes?validFrom=${iso(60)}&validTo=${iso(240)}`)).status).toBe(403)
+  })
+})

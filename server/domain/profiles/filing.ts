@@ -144,7 +144,7 @@ export type FiledProfile = {
  * A coded-report profile: the lines are read again here, their station and age checked against the airfield;
  * a warning not confirmed refuses the filing. Returns the raw text and the runway wind shear to keep.
  */
-function codedReportOf(airfield: Airfield, coded: { text: string, confirmWarnings?: boolean }, now: Date) {
+function codedReportOf(airfield: Airfield, coded: { text: string, confirmWarnings?: boolean, period?: { line: number, index: number } }, now: Date) {
   const read = parseCodedLines(coded.text, now)
   if (read.issues.length) {
     throw profileIssuesError(read.issues.map(i => ({ field: `codedReport.text`, line: i.line, message: i.message })), 'The reports could not be read')
@@ -153,14 +153,22 @@ function codedReportOf(airfield: Airfield, coded: { text: string, confirmWarning
   if (warnings.length && !coded.confirmWarnings) {
     throw profileIssuesError(warnings.map(w => ({ field: 'codedReport.confirmWarnings', line: w.line, message: `${w.message} Confirm to file anyway.` })), 'The reports need confirming')
   }
-  const shear = read.reports.filter(r => r.runwayShear)
-  const reportedWindShear: ReportedWindShear | null = shear.length
+  // A profile for one TAF period keeps that period's runway wind shear only; otherwise every report's.
+  let shearSources = read.reports.filter(r => r.runwayShear).map(r => ({ shear: r.runwayShear!, text: r.text, observedAt: r.observedAt }))
+  if (coded.period) {
+    const { line, index } = coded.period
+    const report = read.reports.find(r => r.line === line)
+    const period = report?.periods[index]
+    if (!report || !period) throw profileIssuesError([{ field: 'codedReport.period', line, message: `Line ${line} has no period ${index + 1}` }], 'The reports could not be read')
+    shearSources = period.runwayShear ? [{ shear: period.runwayShear, text: report.text, observedAt: report.observedAt }] : []
+  }
+  const reportedWindShear: ReportedWindShear | null = shearSources.length
     ? {
-        allRunways: shear.some(r => r.runwayShear!.allRunways),
-        runways: [...new Set(shear.flatMap(r => r.runwayShear!.runways))],
-        groups: shear.flatMap(r => r.runwayShear!.groups),
-        report: shear.map(r => r.text).join('\n').slice(0, 2000),
-        observedAt: shear[0]!.observedAt,
+        allRunways: shearSources.some(r => r.shear.allRunways),
+        runways: [...new Set(shearSources.flatMap(r => r.shear.runways))],
+        groups: shearSources.flatMap(r => r.shear.groups),
+        report: shearSources.map(r => r.text).join('\n').slice(0, 2000),
+        observedAt: shearSources[0]!.observedAt,
       }
     : null
   const observed = read.reports.find(r => (r.kind === 'METAR' || r.kind === 'SPECI') && r.observedAt)?.observedAt
