@@ -248,6 +248,37 @@ describe('access and paper', () => {
     })
   }
 
+  it('phone: the day\'s trend chart fits the width, names every line at its end and keeps its text readable', async () => {
+    const { context, page } = await pilotPage(PHONE)
+    await open(page, '/briefings/XVAL')
+    const trend = page.locator('[data-test=trend]')
+    await trend.scrollIntoViewIfNeeded()
+    await trend.locator('[data-test=trend-wind]').waitFor()
+    // Once hydrated (on view), the chart redraws at its own pixel width instead of a scaled-down desk drawing.
+    await page.waitForFunction(() => [...document.querySelectorAll('[data-test=trend] svg')].every(s => Number(s.getAttribute('width')) <= 390))
+    const facts = await trend.evaluate((el) => {
+      const svgs = [...el.querySelectorAll('svg')]
+      const texts = [...el.querySelectorAll('svg text')] as SVGTextElement[]
+      return {
+        widest: Math.max(...svgs.map(s => s.getBoundingClientRect().right)),
+        // Font size as drawn: the CSS size times the SVG's scale (its drawn width over its viewBox width).
+        smallestFontPx: Math.min(...texts.map((t) => {
+          const svg = t.ownerSVGElement!
+          return parseFloat(getComputedStyle(t).fontSize) * svg.getBoundingClientRect().width / svg.viewBox.baseVal.width
+        })),
+        lineNames: [...el.querySelectorAll('[data-test=trend-line-label]')].map(t => t.textContent ?? ''),
+        legend: el.querySelector('p')?.textContent ?? '',
+      }
+    })
+    expect(facts.widest).toBeLessThanOrEqual(PHONE.width)
+    expect(facts.smallestFontPx).toBeGreaterThanOrEqual(10.5)
+    expect(facts.lineNames.some(n => n.startsWith('shear'))).toBe(true)
+    expect(facts.lineNames.some(n => n.startsWith('crosswind'))).toBe(true)
+    expect(facts.legend).not.toMatch(/teal|amber|red/) // the legend does not rely on colour names
+    await trend.screenshot({ path: join(OUTPUT_DIR, 'briefing-phone-trend.png') })
+    await context.close()
+  })
+
   it('print: the chosen end on one page, the caution, the key heights, the 100 ft table open, no hints, dates as 2026-12-02 00:00Z', async () => {
     const { context, page } = await pilotPage(DESK)
     await open(page, '/briefings/XVAL?end=22')
