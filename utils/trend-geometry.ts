@@ -36,7 +36,9 @@ export function spreadLabels(ys: number[], top: number, bottom: number, gapPx = 
   const over = (placed[placed.length - 1] ?? bottom) - bottom
   if (over > 0) for (let k = 0; k < placed.length; k++) placed[k] = placed[k]! - over
   const out = new Array<number>(ys.length)
-  order.forEach((o, k) => { out[o.i] = placed[k]! })
+  order.forEach((o, k) => {
+    out[o.i] = placed[k]!
+  })
   return out
 }
 
