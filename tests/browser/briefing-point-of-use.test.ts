@@ -72,6 +72,10 @@ describe('the answer first', () => {
       }
       expect(await page.locator('[data-test=verdict]').textContent()).toMatch(/Runway \d{2}[LCR]?: (within limits|\d+ limits? exceeded)/)
       expect(await page.locator('[data-test=caution-short]').textContent()).toContain('Advisory only')
+      // With the filing issue's engine: the loss in the approach corridor and the F-factor are in the answer too.
+      expect(await page.locator('[data-test=answer-loss]').textContent()).toContain('approach corridor')
+      expect(await page.locator('[data-test=answer-ffactor]').textContent()).toMatch(/-?\d\.\d{3} arrival/)
+      expect(await bottomOf(page, '[data-test=answer-ffactor]'), `F-factor on the ${name}`).toBeLessThanOrEqual(viewport.height)
       // The key heights are round values of the reader's unit (feet by default), not converted metres.
       const labels = (await page.locator('[data-test=key-heights] tbody th').allTextContents()).map(t => t.trim())
       expect(labels).toEqual(['SFC', '500 ft', '1,000 ft', '1,500 ft', '2,000 ft'])
