@@ -50,6 +50,12 @@ mariadb_stop() {
   if mariadb_is_up; then
     log "stopping MariaDB"
     mariadb-admin --no-defaults --socket="$MARIADB_SOCKET" -uroot shutdown >/dev/null 2>&1 || true
+    # Wait until it is really gone: a start right after a stop must not find a server that is still shutting down.
+    local i
+    for i in $(seq 1 150); do
+      if [ ! -f "$MARIADB_PID_FILE" ] && ! mariadb_is_up; then return 0; fi
+      sleep 0.2
+    done
   fi
 }
 

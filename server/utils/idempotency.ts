@@ -64,15 +64,16 @@ export function isDuplicateKeyError(err: unknown): boolean {
 
 /**
  * Runs a write once per Idempotency-Key: a repeated request (or a twin that lost the race on the unique key) gets
- * the first answer again with `Idempotent-Replayed: true`; `run` stores its answer in its own transaction.
+ * the first answer again with `Idempotent-Replayed: true`; `run` stores its answer in its own transaction. The answer
+ * stored for a key is the one `run` returned for it, so a replay has its type.
  */
-export async function onceForKey<T>(event: H3Event, claim: IdempotencyClaim | null, run: () => Promise<T>): Promise<T | unknown> {
+export async function onceForKey<T>(event: H3Event, claim: IdempotencyClaim | null, run: () => Promise<T>): Promise<T> {
   const replay = async () => {
     const first = claim && await storedAnswer(claim)
     if (!first) return null
     setResponseStatus(event, first.status)
     setHeader(event, 'Idempotent-Replayed', 'true')
-    return first.body
+    return first.body as T
   }
   const replayed = await replay()
   if (replayed) return replayed

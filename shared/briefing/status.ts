@@ -11,10 +11,13 @@ export function utcMinute(d: Date): string {
   return `${iso.slice(0, 10)} ${iso.slice(11, 16)}Z`
 }
 
-/** Withdrawn and superseded come first (they hold whatever the time); then validity at `at`. */
-export function profileStatusAt(p: { status: string, validFrom: Date, validTo: Date }, at: Date): ProfileStatus {
+/**
+ * Withdrawn and superseded come first (they hold whatever the time); then validity at `at`. `supersededThen`: a
+ * newer profile took over the moment `at` (supersession by time: the profile may be in force at other moments).
+ */
+export function profileStatusAt(p: { status: string, validFrom: Date, validTo: Date }, at: Date, supersededThen = false): ProfileStatus {
   if (p.status === 'withdrawn') return 'withdrawn'
-  if (p.status === 'superseded') return 'superseded'
+  if (p.status === 'superseded' || supersededThen) return 'superseded'
   if (p.validTo.getTime() < at.getTime()) return 'expired'
   if (p.validFrom.getTime() > at.getTime()) return 'upcoming'
   return 'current'

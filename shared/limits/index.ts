@@ -13,8 +13,10 @@ export interface Limits {
   maxLayerShearKtPer100ft: number
   /** Maximum magnitude of the vector wind difference from the surface to 600 m. */
   maxVectorDiff600mKt: number
-  /** Maximum airspeed loss a steady aircraft meets along the arrival or departure path. */
+  /** Maximum airspeed loss a steady aircraft meets in the final approach or initial climb corridor. */
   maxAirspeedLossKt: number
+  /** Largest 1 km averaged F-factor (horizontal wind only) along the arrival or departure path. */
+  maxFFactor: number
   /** A figure within this share of its limit is reported as near the limit. */
   nearLimitMarginPct: number
 }
@@ -32,6 +34,10 @@ export const DEFAULT_LIMITS: Limits = {
   maxLayerShearKtPer100ft: 8,
   maxVectorDiff600mKt: 30,
   maxAirspeedLossKt: 15,
+  // 0.1: the 1 km averaged F-factor from which airborne wind shear systems advise (Proctor, Hinton and Bowles 2000,
+  // "A Windshear Hazard Index", on its hazard threshold; "an F-Factor ranging between 0.1-0.15 or more ... used to
+  // provide windshear advisories", Aerocrew News 2024, seen; the 1 km averaging from memory).
+  maxFFactor: 0.1,
   nearLimitMarginPct: 10,
 }
 
@@ -42,6 +48,7 @@ export const LIMIT_RANGES: Record<keyof Limits, { min: number, max: number, unit
   maxLayerShearKtPer100ft: { min: 1, max: 30, unit: 'kt/100 ft', label: 'Maximum layer shear' },
   maxVectorDiff600mKt: { min: 5, max: 100, unit: 'kt', label: 'Maximum vector difference, surface to 600 m' },
   maxAirspeedLossKt: { min: 5, max: 60, unit: 'kt', label: 'Maximum airspeed loss along the path' },
+  maxFFactor: { min: 0.03, max: 0.5, unit: '(F, no unit)', label: 'Maximum F-factor (1 km average)' },
   nearLimitMarginPct: { min: 0, max: 50, unit: '%', label: 'Near-limit margin' },
 }
 
@@ -49,6 +56,16 @@ export type LimitKind
   = | 'crosswind' | 'crosswind-gust' | 'tailwind' | 'tailwind-gust'
     | 'airspeed-loss-arrival' | 'airspeed-loss-departure'
     | 'layer-shear' | 'vector-difference'
+    | 'f-factor-arrival' | 'f-factor-departure'
+    | 'reported-wind-shear'
+
+/** Runway wind shear reported in a coded report (WS Rnn, WS ALL RWY, WS LDG/TKOF RWYnn). */
+export interface ReportedShear {
+  allRunways: boolean
+  runways: string[]
+  groups: string[]
+  observedAt: string | null
+}
 
 export interface LimitCheck {
   kind: LimitKind
@@ -56,7 +73,7 @@ export interface LimitCheck {
   designator: string | null
   value: number
   limit: number
-  unit: 'kt' | 'kt/100 ft'
+  unit: 'kt' | 'kt/100 ft' | 'F' | 'report'
   /** value - limit (positive when exceeded). */
   excess: number
   state: 'exceeded' | 'near' | 'within'
@@ -73,6 +90,9 @@ const KIND_WORDS: Record<LimitKind, string> = {
   'airspeed-loss-departure': 'Airspeed loss on departure',
   'layer-shear': 'Layer shear',
   'vector-difference': 'Vector wind difference surface to 600 m',
+  'f-factor-arrival': 'F-factor (1 km, horizontal wind only) on arrival',
+  'f-factor-departure': 'F-factor (1 km, horizontal wind only) on departure',
+  'reported-wind-shear': 'Wind shear reported',
 }
 
 function check(kind: LimitKind, designator: string | null, value: number, limit: number, unit: LimitCheck['unit'],
@@ -80,9 +100,9 @@ function check(kind: LimitKind, designator: string | null, value: number, limit:
   const excess = value - limit
   const state = value > limit ? 'exceeded' : value >= limit * (1 - marginPct / 100) ? 'near' : 'within'
   const subject = `${KIND_WORDS[kind]}${designator ? ` runway ${designator}` : ''}${where}`
-  const v = value.toFixed(1)
+  const v = unit === 'F' ? value.toFixed(3) : value.toFixed(1)
   const message = state === 'exceeded'
-    ? `${subject} ${v} ${unit} exceeds the limit of ${limit} ${unit} by ${excess.toFixed(1)} ${unit}`
+    ? `${subject} ${v} ${unit} exceeds the limit of ${limit} ${unit} by ${unit === 'F' ? excess.toFixed(3) : excess.toFixed(1)} ${unit}`
     : state === 'near'
       ? `${subject} ${v} ${unit} is within ${marginPct}% of the limit of ${limit} ${unit}`
       : `${subject} ${v} ${unit} is within the limit of ${limit} ${unit}`
@@ -94,7 +114,7 @@ function check(kind: LimitKind, designator: string | null, value: number, limit:
  * `limitsFor`). Figures the profile cannot give (no surface level, short of 600 m) are left out, not invented.
  */
 export function evaluateLimits(analysis: ProfileAnalysis, limits: Limits,
-  limitsFor: (designator: string) => Limits = () => limits): LimitCheck[] {
+  limitsFor: (designator: string) => Limits = () => limits, reported: ReportedShear | null = null): LimitCheck[] {
   const checks: LimitCheck[] = []
   for (const end of analysis.runwayEnds) {
     const l = limitsFor(end.designator)
@@ -106,8 +126,22 @@ export function evaluateLimits(analysis: ProfileAnalysis, limits: Limits,
       checks.push(check('tailwind', end.designator, Math.max(0, -s.headwindKt), l.maxTailwindKt, 'kt', m))
       if (s.gustHeadwindKt != null) checks.push(check('tailwind-gust', end.designator, Math.max(0, -s.gustHeadwindKt), l.maxTailwindKt, 'kt', m))
     }
-    if (end.arrival) checks.push(check('airspeed-loss-arrival', end.designator, end.arrival.maxAirspeedLossKt, l.maxAirspeedLossKt, 'kt', m))
-    if (end.departure) checks.push(check('airspeed-loss-departure', end.designator, end.departure.maxAirspeedLossKt, l.maxAirspeedLossKt, 'kt', m))
+    // The airspeed loss check covers the final approach / initial climb corridor (airport wind shear alerting
+    // practice); the 0-600 m path figure stays information on the briefing.
+    const nm = ` within ${analysis.paths.corridorNm} NM of the threshold`
+    if (end.arrivalCorridor) checks.push(check('airspeed-loss-arrival', end.designator, end.arrivalCorridor.maxAirspeedLossKt, l.maxAirspeedLossKt, 'kt', m, nm))
+    if (end.departureCorridor) checks.push(check('airspeed-loss-departure', end.designator, end.departureCorridor.maxAirspeedLossKt, l.maxAirspeedLossKt, 'kt', m, nm))
+    const fa = end.fFactor.arrival
+    const fd = end.fFactor.departure
+    if (fa) checks.push(check('f-factor-arrival', end.designator, fa.maxF, l.maxFFactor, 'F', m, ` (${Math.round(fa.startHeightM)}-${Math.round(fa.endHeightM)} m)`))
+    if (fd) checks.push(check('f-factor-departure', end.designator, fd.maxF, l.maxFFactor, 'F', m, ` (${Math.round(fd.startHeightM)}-${Math.round(fd.endHeightM)} m)`))
+    if (reported && (reported.allRunways || reported.runways.includes(end.designator))) {
+      const groups = reported.groups.filter(g => g === 'WS ALL RWY' || g.endsWith(end.designator)).join(', ')
+      checks.push({
+        kind: 'reported-wind-shear', designator: end.designator, value: 1, limit: 0, unit: 'report', excess: 1, state: 'exceeded',
+        message: `Wind shear reported for runway ${end.designator} (${groups}${reported.observedAt ? `, report of ${reported.observedAt.slice(0, 16).replace('T', ' ')}Z` : ''})`,
+      })
+    }
   }
   const m = limits.nearLimitMarginPct
   const strongest = analysis.shear.strongestLayer

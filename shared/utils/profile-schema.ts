@@ -6,7 +6,7 @@ import { instantSchema, pageSchema, pageSizeSchema } from './input-schemas'
 // The public profile JSON shape (README "Profile JSON"), shared by the API, the import parsers and the entry form.
 // The wind engine's normaliseProfile stays the authority on whole-profile rules (ground, duplicates, surface gust).
 
-export const PROFILE_SOURCES = ['radiosonde', 'wind-profiler', 'doppler-lidar', 'aircraft-reports', 'model-forecast', 'pilot-report', 'estimate'] as const
+export const PROFILE_SOURCES = ['radiosonde', 'wind-profiler', 'doppler-lidar', 'aircraft-reports', 'model-forecast', 'pilot-report', 'estimate', 'coded-report'] as const
 export type ProfileSourceName = typeof PROFILE_SOURCES[number]
 export const PROFILE_SOURCE_LABELS: Record<ProfileSourceName, string> = {
   'radiosonde': 'Radiosonde',
@@ -16,6 +16,7 @@ export const PROFILE_SOURCE_LABELS: Record<ProfileSourceName, string> = {
   'model-forecast': 'Model forecast',
   'pilot-report': 'Pilot report',
   'estimate': 'Estimate',
+  'coded-report': 'Coded report (METAR/TAF)',
 }
 export const HEIGHT_REFERENCES = ['AGL', 'MSL'] as const
 export const PROFILE_ENTRY_METHODS = ['table', 'file', 'coded', 'api'] as const
@@ -44,10 +45,13 @@ export const profileLevelSchema = z.object({
   speedMps: num('Speed').min(0, 'Speed must be 0 or more').max(PROFILE_MAX_SPEED_KT * MPS_PER_KT, 'Speed must be at most 128 m/s').optional(),
   gustKt: num('Gust').min(0, 'Gust must be 0 or more').max(PROFILE_MAX_SPEED_KT, `Gust must be at most ${PROFILE_MAX_SPEED_KT} kt`).optional(),
   gustMps: num('Gust').min(0, 'Gust must be 0 or more').max(PROFILE_MAX_SPEED_KT * MPS_PER_KT, 'Gust must be at most 128 m/s').optional(),
+  temperatureC: num('Temperature').min(-90, 'Temperature must be from -90 to 60 °C').max(60, 'Temperature must be from -90 to 60 °C').optional(),
 }).strict().superRefine((level, ctx) => {
   const given = (keys: readonly (keyof typeof level)[]) => keys.filter(k => level[k] !== undefined)
-  const heights = given(LEVEL_HEIGHT_KEYS)
-  if (heights.length !== 1) ctx.addIssue({ code: z.ZodIssueCode.custom, path: [heights[1] ?? 'heightM'], message: heights.length ? 'Give one height only: metres, feet or a pressure level' : 'Height is required' })
+  // A height and a pressure may come together (the height wins); two heights may not.
+  const lengths = given(['heightM', 'heightFt'])
+  if (lengths.length > 1) ctx.addIssue({ code: z.ZodIssueCode.custom, path: [lengths[1]!], message: 'Give one height only: metres or feet (a pressure level may come with it)' })
+  else if (!given(LEVEL_HEIGHT_KEYS).length) ctx.addIssue({ code: z.ZodIssueCode.custom, path: ['heightM'], message: 'Height is required' })
   const speeds = given(LEVEL_SPEED_KEYS)
   if (speeds.length !== 1) ctx.addIssue({ code: z.ZodIssueCode.custom, path: [speeds[1] ?? 'speedKt'], message: speeds.length ? 'Give one speed only: knots or metres per second' : 'Speed is required' })
   const gusts = given(LEVEL_GUST_KEYS)
@@ -70,9 +74,19 @@ const profileHeaderShape = {
   source: z.enum(PROFILE_SOURCES, { errorMap: () => ({ message: `Source must be one of ${PROFILE_SOURCES.join(', ')}` }) }),
   heightReference: z.enum(HEIGHT_REFERENCES, { errorMap: () => ({ message: 'Height reference must be AGL or MSL' }) }),
   notes: z.string().max(2000, 'Notes: at most 2000 characters').optional(),
+  qnhHpa: num('QNH').min(850, 'QNH must be from 850 to 1100 hPa').max(1100, 'QNH must be from 850 to 1100 hPa').optional(),
+  surfacePressureHpa: num('Station pressure').min(300, 'Station pressure must be from 300 to 1100 hPa').max(1100, 'Station pressure must be from 300 to 1100 hPa').optional(),
+  // Source 'coded-report': the report lines as pasted; their station and age warnings must be confirmed.
+  codedReport: z.object({
+    text: z.string({ required_error: 'Paste the report lines' }).min(1, 'Paste the report lines').max(20_000, 'At most 20,000 characters'),
+    confirmWarnings: z.boolean().optional(),
+    // A profile for one period of a TAF (POST .../profiles/periods): its line and the period's place.
+    period: z.object({ line: z.number().int().min(1), index: z.number().int().min(0) }).strict().optional(),
+  }).strict().optional(),
 }
 
-function checkValidity(p: { validFrom: string, validTo: string }, ctx: z.RefinementCtx) {
+function checkValidity(p: { validFrom: string, validTo: string, source?: string, codedReport?: unknown }, ctx: z.RefinementCtx) {
+  if (p.source === 'coded-report' && !p.codedReport) ctx.addIssue({ code: z.ZodIssueCode.custom, path: ['codedReport'], message: 'A profile from coded reports needs the report lines: paste them under "Paste coded reports" and read them' })
   const from = Date.parse(p.validFrom)
   const to = Date.parse(p.validTo)
   if (!(to > from)) ctx.addIssue({ code: z.ZodIssueCode.custom, path: ['validTo'], message: 'Valid to must be after valid from' })
@@ -96,6 +110,8 @@ export const windPreviewSchema = z.object({
     trueHeadingDeg: num('True heading').min(0).max(360),
   }).strict()).max(64).optional(),
   elevationM: num('Elevation').min(-500).max(9000).optional(),
+  qnhHpa: num('QNH').min(850, 'QNH must be from 850 to 1100 hPa').max(1100, 'QNH must be from 850 to 1100 hPa').optional(),
+  surfacePressureHpa: num('Station pressure').min(300, 'Station pressure must be from 300 to 1100 hPa').max(1100, 'Station pressure must be from 300 to 1100 hPa').optional(),
 }).strict().superRefine((p, ctx) => {
   if (p.airfield && p.runwayEnds) ctx.addIssue({ code: z.ZodIssueCode.custom, path: ['airfield'], message: 'Give an airfield or runwayEnds, not both' })
   if (!p.airfield && p.heightReference === 'MSL' && p.elevationM === undefined) ctx.addIssue({ code: z.ZodIssueCode.custom, path: ['elevationM'], message: 'MSL heights need elevationM (or an airfield)' })

@@ -1,11 +1,12 @@
 import { signedAngleDiffDeg } from './angles'
 import { bunkersOf, helicityOf, streamwiseShareOf } from './convective'
+import { fFactorOfPath, samplePath } from './ffactor'
 import { componentsOf, designatorMismatch } from './runway'
 import { MPS_PER_KT } from '../units'
 import { SURFACE_LEVEL_MAX_AGL_M, normaliseProfile } from './validate'
 import { uvToDirectionDeg } from './vector'
 import type {
-  ConvectiveContext, Coverage, GridPoint, HeightComponents, NormalisedLevel, PathChange, ProfileAnalysis,
+  ConvectiveContext, Coverage, GridPoint, HeightComponents, NormalisedLevel, PathChange, PathGeometry, ProfileAnalysis,
   ProfileAnalysisInput, RunwayEndAnalysis, ShearAnalysis, ShearClassBoundsKtPer100ft, ShearIntensity, ShearLayer,
   SurfaceComponents, TurnSense, VectorDifference, WindVectorKt, WindWarning,
 } from './types'
@@ -207,13 +208,65 @@ function analyseShear(grid: GridPoint[], surface: NormalisedLevel | null, covera
   }
 }
 
+/** The grid cut at a corridor's top height (interpolated there when the data reaches it). */
+interface CorridorGrid {
+  heights: Float64Array
+  u: Float64Array
+  v: Float64Array
+  complete: boolean
+}
+
+function corridorGrid(grid: GridPoint[], topM: number, surfaceCovered: boolean): CorridorGrid {
+  const n = grid.length
+  let count = 0
+  while (count < n && grid[count]!.heightAglM <= topM + SAME_POINT_M) count++
+  const reaches = n > 0 && grid[n - 1]!.heightAglM >= topM - SAME_POINT_M
+  const addTop = reaches && count < n && count > 0 && Math.abs(grid[count - 1]!.heightAglM - topM) > SAME_POINT_M
+  const m = count + (addTop ? 1 : 0)
+  const heights = new Float64Array(m)
+  const u = new Float64Array(m)
+  const v = new Float64Array(m)
+  for (let k = 0; k < count; k++) {
+    heights[k] = grid[k]!.heightAglM
+    u[k] = grid[k]!.uKt
+    v[k] = grid[k]!.vKt
+  }
+  if (addTop) {
+    const a = grid[count - 1]!
+    const b = grid[count]!
+    const t = (topM - a.heightAglM) / (b.heightAglM - a.heightAglM)
+    heights[count] = topM
+    u[count] = a.uKt + t * (b.uKt - a.uKt)
+    v[count] = a.vKt + t * (b.vKt - a.vKt)
+  }
+  return { heights, u, v, complete: surfaceCovered && reaches }
+}
+
+function corridorChange(c: CorridorGrid, headingDeg: number, order: 1 | -1, scratch: Float64Array): PathChange | null {
+  const m = c.heights.length
+  if (m < 2) return null
+  const rad = (headingDeg * Math.PI) / 180
+  const sinH = Math.sin(rad)
+  const cosH = Math.cos(rad)
+  const headwinds = scratch.subarray(0, m)
+  for (let k = 0; k < m; k++) headwinds[k] = -(c.u[k]! * sinH + c.v[k]! * cosH)
+  return pathChange(c.heights, headwinds, order, c.complete)
+}
+
 function analyseRunwayEnds(input: { designator: string, trueHeadingDeg: number, magneticHeadingDeg?: number }[],
-  grid: GridPoint[], surface: NormalisedLevel | null, complete: boolean, warnings: WindWarning[]): RunwayEndAnalysis[] {
+  grid: GridPoint[], surface: NormalisedLevel | null, complete: boolean, paths: PathGeometry,
+  warnings: WindWarning[]): RunwayEndAnalysis[] {
   const out: RunwayEndAnalysis[] = []
   const n = grid.length
   const heights = new Float64Array(n)
   for (let k = 0; k < n; k++) heights[k] = grid[k]!.heightAglM
   const headwinds = new Float64Array(n)
+  const surfaceCovered = surface !== null
+  const arrivalCorridor = corridorGrid(grid, paths.arrivalCorridorTopM, surfaceCovered)
+  const departureCorridor = corridorGrid(grid, paths.departureCorridorTopM, surfaceCovered)
+  const arrivalSamples = input.length ? samplePath(grid, paths.arrivalGlidePathDeg, surfaceCovered) : null
+  const departureSamples = input.length ? samplePath(grid, paths.departureClimbDeg, surfaceCovered) : null
+  const scratch = new Float64Array(Math.max(n + 1, arrivalSamples?.heightsM.length ?? 0, departureSamples?.heightsM.length ?? 0))
   for (const end of input) {
     const byHeight: HeightComponents[] = new Array(n)
     for (let k = 0; k < n; k++) {
@@ -249,6 +302,12 @@ function analyseRunwayEnds(input: { designator: string, trueHeadingDeg: number, 
       byHeight,
       arrival: n >= 2 ? pathChange(heights, headwinds, -1, complete) : null,
       departure: n >= 2 ? pathChange(heights, headwinds, 1, complete) : null,
+      arrivalCorridor: corridorChange(arrivalCorridor, end.trueHeadingDeg, -1, scratch),
+      departureCorridor: corridorChange(departureCorridor, end.trueHeadingDeg, 1, scratch),
+      fFactor: {
+        arrival: fFactorOfPath(arrivalSamples!, end.trueHeadingDeg, paths.arrivalTrueAirspeedKt, true, scratch),
+        departure: fFactorOfPath(departureSamples!, end.trueHeadingDeg, paths.departureTrueAirspeedKt, false, scratch),
+      },
     }
     if (end.magneticHeadingDeg !== undefined) result.magneticHeadingDeg = end.magneticHeadingDeg
     out.push(result)
@@ -305,7 +364,7 @@ function analyseConvective(levels: NormalisedLevel[], surface: NormalisedLevel |
  * Throws only WindValidationError.
  */
 export function analyseProfile(input: ProfileAnalysisInput): ProfileAnalysis {
-  const { levels, runwayEnds, bounds, warnings } = normaliseProfile(input)
+  const { levels, runwayEnds, bounds, paths, warnings } = normaliseProfile(input)
   const lowest = levels[0]!
   const highest = levels[levels.length - 1]!
   const coverage: Coverage = {
@@ -328,10 +387,10 @@ export function analyseProfile(input: ProfileAnalysisInput): ProfileAnalysis {
   const grid = buildGrid(levels)
   const shear = analyseShear(grid, surface, coverage, bounds)
   const pathComplete = surface !== null && coverage.reaches600m
-  const runwayResults = analyseRunwayEnds(runwayEnds, grid, surface, pathComplete, warnings)
+  const runwayResults = analyseRunwayEnds(runwayEnds, grid, surface, pathComplete, paths, warnings)
   const convective = analyseConvective(levels, surface, coverage)
   if (!convective.available) {
     warnings.push({ code: 'convective-unavailable', message: `Convective context not available: ${convective.reason}.` })
   }
-  return { levels, grid, coverage, surface, surfaceReason, shear, runwayEnds: runwayResults, convective, warnings }
+  return { levels, grid, coverage, surface, surfaceReason, shear, runwayEnds: runwayResults, convective, paths, warnings }
 }

@@ -32,3 +32,29 @@ export function heightToPressureHpa(heightM: number): number {
   if (heightM <= TROPOPAUSE_M) return P0_HPA * Math.pow(1 - (LAPSE_K_PER_M * heightM) / T0_K, 1 / EXPONENT)
   return P11_HPA * Math.exp((-G0 * (heightM - TROPOPAUSE_M)) / (R_AIR * T11_K))
 }
+
+/** Gas constant of dry air used by the hypsometric equation, J/(kg·K) (AMS Glossary, "hypsometric equation"). */
+export const RD_J_PER_KG_K = 287.05
+export const G0_MPS2 = G0
+
+/**
+ * Height above the reference pressure's level, in metres, by the ICAO standard atmosphere referred to another
+ * reference pressure: what an altimeter set to QNH (or QFE) shows, H = (T0/L)[1 - (p/ref)^(RL/g0)] (troposphere).
+ */
+export function heightAboveReferenceM(pressureHpa: number, referenceHpa: number): number {
+  return (T0_K / LAPSE_K_PER_M) * (1 - Math.pow(pressureHpa / referenceHpa, EXPONENT))
+}
+
+/** Pressure at an elevation in the standard atmosphere referred to QNH (inverse of `heightAboveReferenceM`). */
+export function pressureAtElevationHpa(qnhHpa: number, elevationM: number): number {
+  return qnhHpa * Math.pow(1 - (LAPSE_K_PER_M * elevationM) / T0_K, 1 / EXPONENT)
+}
+
+/**
+ * Thickness in metres of the layer from p1 up to p2 (hPa) with the mean temperature of the layer in kelvin:
+ * the hypsometric equation Δz = (Rd·T̄/g0)·ln(p1/p2). Air temperature stands in for the virtual temperature:
+ * no humidity is filed (the difference is under about 1 %).
+ */
+export function hypsometricThicknessM(p1Hpa: number, p2Hpa: number, meanTemperatureK: number): number {
+  return ((RD_J_PER_KG_K * meanTemperatureK) / G0) * Math.log(p1Hpa / p2Hpa)
+}

@@ -16,13 +16,16 @@ export { windAtHeightAglM, type WindAtHeight } from './at-height'
 export {
   runwayComponents, designatorMismatch, designatorHeadingDeg, reciprocalHeadingDeg, DESIGNATOR_TOLERANCE_DEG,
 } from './runway'
-export { pressureToHeightM, heightToPressureHpa } from './atmosphere'
+export {
+  pressureToHeightM, heightToPressureHpa, heightAboveReferenceM, pressureAtElevationHpa, hypsometricThicknessM, RD_J_PER_KG_K,
+} from './atmosphere'
+export { fFactorOfPath, samplePath, G_MPS2, FFACTOR_HAZARD, FFACTOR_AVERAGE_M, FFACTOR_STEP_M } from './ffactor'
 export { magneticDeclinationDeg, magneticFromTrue, trueFromMagnetic, WMM2025_START, WMM2025_END } from './magnetic'
-export { runwayTrueBearingDeg } from './geodesy'
+export { runwayTrueBearingDeg, thresholdDistanceM } from './geodesy'
 export { stormRelativeHelicity, bunkersStormMotion, streamwiseVorticityShare, BUNKERS_DEVIATION_MPS } from './convective'
 export { parseCodedReport } from './coded'
 export {
   normaliseProfile, DEFAULT_SHEAR_CLASS_BOUNDS_KT_PER_100FT, SURFACE_LEVEL_MAX_AGL_M, MAX_SPEED_KT, MAX_HEIGHT_AGL_M,
+  DEFAULT_PATH_SETTINGS, SURFACE_BELOW_ELEVATION_M,
 } from './validate'
-export { levelInputSchema, profileLevelsSchema, runwayEndInputSchema, profileAnalysisInputSchema } from './schema'
 export { analyseProfile, classifyShear, pathChange, GRID_STEP_M, GRID_TOP_M, ALERTING_PRACTICE_KT } from './analyse'

@@ -14,8 +14,14 @@ export interface LevelInput {
   heightM?: number
   /** Height in feet (AGL or MSL according to `heightReference`). */
   heightFt?: number
-  /** Pressure level in hPa, converted with the ICAO standard atmosphere (needs `elevationM`). */
+  /**
+   * Pressure level in hPa. Placed by the hypsometric equation where temperatures are given, else by the standard
+   * atmosphere referred to the QNH (or station pressure), else by the standard atmosphere (with a warning).
+   * With a height given as well, the height wins.
+   */
   pressureHpa?: number
+  /** Air temperature at the level, °C (used to place pressure levels). */
+  temperatureC?: number
   /** Direction the wind blows from, degrees true, 0..360 (ignored when the speed is 0). */
   directionDeg: number
   speedKt?: number
@@ -55,6 +61,28 @@ export interface ProfileAnalysisInput {
   runwayEnds?: RunwayEndInput[]
   /** Partial override of the default shear class bounds. */
   shearClassBoundsKtPer100ft?: Partial<ShearClassBoundsKtPer100ft>
+  /** QNH of the time, hPa: pressure levels are placed as an altimeter set to it shows. */
+  qnhHpa?: number
+  /** Station pressure (QFE) at the airfield elevation, hPa; preferred to the QNH when both are given. */
+  surfacePressureHpa?: number
+  /** Approach and departure geometry (per airfield); defaults in `DEFAULT_PATH_SETTINGS`. */
+  paths?: Partial<PathSettings>
+}
+
+/** Geometry of the final approach and initial climb used for the corridor check and the F-factor. */
+export interface PathSettings {
+  /** Length of the final approach / initial climb corridor from the threshold, NM (about 3 NM: common practice). */
+  corridorNm: number
+  arrivalGlidePathDeg: number
+  arrivalTrueAirspeedKt: number
+  departureClimbDeg: number
+  departureTrueAirspeedKt: number
+}
+
+/** The geometry used, with the heights at the corridor's far end. */
+export interface PathGeometry extends PathSettings {
+  arrivalCorridorTopM: number
+  departureCorridorTopM: number
 }
 
 export interface ValidationIssue {
@@ -74,6 +102,7 @@ export type WarningCode
     | 'standard-atmosphere'
     | 'designator-mismatch'
     | 'convective-unavailable'
+    | 'surface-below-elevation'
 
 export interface WindWarning {
   code: WarningCode
@@ -93,9 +122,15 @@ export interface NormalisedLevel {
   uKt: number
   vKt: number
   gustKt?: number
+  /** Air temperature as filed, °C. */
+  temperatureC?: number
+  /** How the height was found: as filed, or from the pressure (hypsometric, QNH, station pressure, standard). */
+  heightFrom: HeightSource
   /** Index of the level in the input array. */
   sourceIndex: number
 }
+
+export type HeightSource = 'filed' | 'hypsometric' | 'qnh' | 'station-pressure' | 'standard-atmosphere'
 
 /** A point of the 0-600 m analysis grid (every 30 m plus the original levels), linear in u and v. */
 export interface GridPoint {
@@ -221,6 +256,32 @@ export interface RunwayEndAnalysis {
   arrival: PathChange | null
   /** Ground up to 600 m; null when fewer than two grid points exist in 0-600 m. */
   departure: PathChange | null
+  /** Final approach corridor (within `corridorNm` of the threshold): the 15 kt check applies here. */
+  arrivalCorridor: PathChange | null
+  /** Initial climb corridor (within `corridorNm` of the threshold). */
+  departureCorridor: PathChange | null
+  /** 1 km averaged F-factor along each path, horizontal wind only. */
+  fFactor: { arrival: FFactorResult | null, departure: FFactorResult | null }
+}
+
+/**
+ * Largest 1 km averaged F-factor along a path, horizontal wind only: no vertical wind is known, so the downdraft
+ * term (-w/V) is left out. F = (Wx at the stretch's end - Wx at its start) x GS / (g x 1000 m), Wx the tailwind
+ * along the runway heading, GS = true airspeed - headwind at the stretch's middle height. Positive = performance
+ * decreasing.
+ */
+export interface FFactorResult {
+  basis: 'horizontal-wind-only'
+  maxF: number
+  /** Distances from the threshold along the track, in the direction of flight (an arrival starts farther out). */
+  startTrackM: number
+  endTrackM: number
+  startHeightM: number
+  endHeightM: number
+  groundSpeedKt: number
+  /** Stretches the data covered / stretches of the path. */
+  stretchesCovered: number
+  stretchesTotal: number
 }
 
 export interface WindVectorKt {
@@ -262,6 +323,7 @@ export interface ProfileAnalysis {
   shear: ShearAnalysis
   runwayEnds: RunwayEndAnalysis[]
   convective: ConvectiveContext
+  paths: PathGeometry
   warnings: WindWarning[]
 }
 
@@ -307,6 +369,7 @@ export interface StormMotionMps {
 // ---- Coded reports ----
 
 export type CodedReportKind = 'METAR' | 'SPECI' | 'TAF' | 'unknown'
+export type CodedSpeedUnit = 'KT' | 'MPS' | 'KMH'
 
 export interface CodedSurfaceWind {
   /** The group as written, e.g. "32012G22KT". */
@@ -320,7 +383,7 @@ export interface CodedSurfaceWind {
   speedAtLeast: boolean
   gustKt?: number
   gustAtLeast?: boolean
-  unit: 'KT' | 'MPS'
+  unit: CodedSpeedUnit
   /** From the dddVddd group (clockwise from first to second), when present. */
   variableFromDeg?: number
   variableToDeg?: number
@@ -332,29 +395,59 @@ export interface CodedShearLevel {
   heightAglM: number
   directionDeg: number
   speedKt: number
-  unit: 'KT' | 'MPS'
+  unit: CodedSpeedUnit
 }
 
 export interface CodedRunwayShear {
   allRunways: boolean
-  /** Runway designators named in WS Rnn groups, e.g. ["24", "07R"]. */
+  /** Runway designators named in WS Rnn / WS LDG RWYnn / WS TKOF RWYnn groups, e.g. ["24", "07R"]. */
   runways: string[]
+  /** The groups as written, e.g. ["WS R24", "WS LDG RWY27"]. */
+  groups: string[]
+}
+
+/** One period of a TAF that gives a wind: the opening conditions, an FM group or a BECMG group. */
+export interface CodedPeriod {
+  change: 'BASE' | 'FM' | 'BECMG'
+  /** The group that opened the period as written ("FM121500", "BECMG 1218/1220"); "" for the opening conditions. */
+  group: string
+  /** ISO times (UTC); null when the report's times could not be read. */
+  from: string | null
+  to: string | null
+  surfaceWind: CodedSurfaceWind | null
+  shearLevels: CodedShearLevel[]
+  runwayShear: CodedRunwayShear | null
+  /** Levels of this period, as `CodedReport.levels`. */
+  levels: LevelInput[]
+  notes: string[]
 }
 
 export interface CodedReport {
   kind: CodedReportKind
+  /** Station identifier (the four-letter location indicator after the report type), or null. */
+  station: string | null
+  /** METAR/SPECI observation time or TAF issue time, ISO UTC; null without a ddhhmmZ group. */
+  observedAt: string | null
+  /** TAF validity, ISO UTC. */
+  validFrom: string | null
+  validTo: string | null
+  /** Minutes from `observedAt` to the `now` given to the parser; null without either. */
+  ageMinutes: number | null
   /** First surface wind group of the report (the prevailing one for a TAF). */
   surfaceWind: CodedSurfaceWind | null
   /** Later wind groups (TAF change groups), in order. */
   laterWinds: CodedSurfaceWind[]
-  /** TAF WShhh/dddffKT groups. */
+  /** TAF WShhh/dddffKT groups of the opening conditions. */
   shearLevels: CodedShearLevel[]
   /** METAR WS Rnn / WS ALL RWY groups; null when none. */
   runwayShear: CodedRunwayShear | null
+  /** TAF periods that give a wind (BASE, FM, BECMG) in order; one BASE period for a METAR. */
+  periods: CodedPeriod[]
   /**
    * Levels ready for `analyseProfile` with heightReference 'AGL': the surface wind at 10 m (WMO standard
    * anemometer height, common practice) when its direction is known, then the WS levels.
    */
   levels: LevelInput[]
+  /** TEMPO and PROB groups (shown, not used) and other remarks on the reading. */
   notes: string[]
 }

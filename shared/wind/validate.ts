@@ -1,11 +1,13 @@
-import { pressureToHeightM } from './atmosphere'
+import {
+  heightAboveReferenceM, heightToPressureHpa, hypsometricThicknessM, pressureAtElevationHpa, pressureToHeightM,
+} from './atmosphere'
 import { describeValue, WindValidationError } from './errors'
 import { designatorHeadingDeg } from './runway'
 import { KMH_PER_KT, M_PER_FT, MPS_PER_KT } from '../units'
 import { windToUV } from './vector'
 import { normaliseHeadingDeg } from './angles'
 import type {
-  HeightReference, NormalisedLevel, RunwayEndInput, ShearClassBoundsKtPer100ft, ValidationIssue, WindWarning,
+  HeightReference, NormalisedLevel, PathGeometry, PathSettings, RunwayEndInput, ShearClassBoundsKtPer100ft, ValidationIssue, WindWarning,
 } from './types'
 
 /** A level this close to the ground counts as the surface level (product rule, issue 3). */
@@ -28,11 +30,41 @@ const SAME_HEIGHT_M = 0.01
 const SAME_WIND_KT = 0.005
 // Rounding of unit conversions must not push a level at ground level underground.
 const GROUND_TOLERANCE_M = 1e-6
+/** An MSL level this far below the elevation (a height rounded to whole feet) is the surface, with a warning. */
+export const SURFACE_BELOW_ELEVATION_M = 1
+const QNH_RANGE_HPA = { min: 850, max: 1100 }
+const STATION_PRESSURE_RANGE_HPA = { min: 300, max: 1100 }
+const MIN_TEMPERATURE_C = -90
+const MAX_TEMPERATURE_C = 60
+const ZERO_C_K = 273.15
+const M_PER_NM = 1852
+
+/**
+ * Corridor and path geometry defaults: 3 NM final approach / initial climb corridor (airport wind shear alerting
+ * practice, common practice); a 3.0° glide path at 140 kt and a 6.0° climb at 160 kt true airspeed (Veerline
+ * defaults, set per airfield).
+ */
+export const DEFAULT_PATH_SETTINGS: Readonly<PathSettings> = Object.freeze({
+  corridorNm: 3,
+  arrivalGlidePathDeg: 3,
+  arrivalTrueAirspeedKt: 140,
+  departureClimbDeg: 6,
+  departureTrueAirspeedKt: 160,
+})
+/** The accepted range of each path setting (engine input and the airfield's stored settings). */
+export const PATH_RANGES: Record<keyof PathSettings, { min: number, max: number, unit: string }> = {
+  corridorNm: { min: 0.5, max: 10, unit: 'NM' },
+  arrivalGlidePathDeg: { min: 1, max: 8, unit: '°' },
+  arrivalTrueAirspeedKt: { min: 40, max: 250, unit: 'kt' },
+  departureClimbDeg: { min: 1, max: 20, unit: '°' },
+  departureTrueAirspeedKt: { min: 40, max: 300, unit: 'kt' },
+}
 
 export interface NormalisedProfile {
   levels: NormalisedLevel[]
   runwayEnds: RunwayEndInput[]
   bounds: ShearClassBoundsKtPer100ft
+  paths: PathGeometry
   warnings: WindWarning[]
 }
 
@@ -46,7 +78,7 @@ function pickOne(level: Record<string, unknown>, keys: readonly string[]): strin
   return found
 }
 
-const HEIGHT_KEYS = ['heightM', 'heightFt', 'pressureHpa'] as const
+const LENGTH_HEIGHT_KEYS = ['heightM', 'heightFt'] as const
 const SPEED_KEYS = ['speedKt', 'speedMps', 'speedKmh'] as const
 const GUST_KEYS = ['gustKt', 'gustMps', 'gustKmh'] as const
 const KT_PER_UNIT: Record<string, number> = {
@@ -103,9 +135,14 @@ export function normaliseProfile(input: unknown): NormalisedProfile {
     }
   }
 
+  const qnhHpa = readPressure(input, 'qnhHpa', 'QNH', QNH_RANGE_HPA, issues)
+  const surfacePressureHpa = readPressure(input, 'surfacePressureHpa', 'station pressure', STATION_PRESSURE_RANGE_HPA, issues)
+
   const rawLevels = input.levels
   const levels: NormalisedLevel[] = []
-  let usedPressure = false
+  // Levels placed by pressure wait until every filed height is known (the surface temperature may be among them).
+  const pending: { level: NormalisedLevel, pressureHpa: number, field: string }[] = []
+  const belowElevation: number[] = []
   if (!Array.isArray(rawLevels)) {
     issues.push({ field: 'levels', message: 'a list of levels is needed' })
   }
@@ -125,62 +162,65 @@ export function normaliseProfile(input: unknown): NormalisedProfile {
       }
       const before = issues.length
 
-      // Height, converted to metres above the ground.
+      // Height, converted to metres above the ground; a filed height wins over a pressure given with it.
       let heightAglM: number | undefined
-      const heightKeys = pickOne(level, HEIGHT_KEYS)
-      if (heightKeys.length !== 1) {
-        issues.push({
-          index: i,
-          field: `${prefix}.heightM`,
-          message: heightKeys.length === 0
-            ? 'a height is needed (heightM, heightFt or pressureHpa)'
-            : `give one height field, not ${heightKeys.join(' and ')}`,
-        })
+      let pressureHpa: number | undefined
+      let heightField = `${prefix}.heightM`
+      const heightKeys = pickOne(level, LENGTH_HEIGHT_KEYS)
+      const hasPressure = present(level.pressureHpa)
+      if (heightKeys.length > 1) {
+        issues.push({ index: i, field: `${prefix}.${heightKeys[1]}`, message: `give one height field, not ${heightKeys.join(' and ')}` })
+      }
+      else if (heightKeys.length === 0 && !hasPressure) {
+        issues.push({ index: i, field: `${prefix}.heightM`, message: 'a height is needed (heightM, heightFt or pressureHpa)' })
+      }
+      else if (heightKeys.length === 0) {
+        const raw = level.pressureHpa
+        heightField = `${prefix}.pressureHpa`
+        if (!isFiniteNumber(raw) || raw <= 0 || raw > 1100) {
+          issues.push({ index: i, field: heightField, message: `must be from above 0 to 1100 hPa, got ${describeValue(raw)}` })
+        }
+        else if (elevationM === undefined && surfacePressureHpa === undefined) {
+          issues.push({ index: i, field: heightField, message: 'a pressure level needs the airfield elevation (elevationM) or the station pressure (surfacePressureHpa)' })
+        }
+        else {
+          pressureHpa = raw
+        }
       }
       else {
         const key = heightKeys[0]!
         const raw = level[key]
+        heightField = `${prefix}.${key}`
         if (!isFiniteNumber(raw)) {
-          issues.push({ index: i, field: `${prefix}.${key}`, message: `must be a number, got ${describeValue(raw)}` })
-        }
-        else if (key === 'pressureHpa') {
-          usedPressure = true
-          if (raw <= 0 || raw > 1100) {
-            issues.push({ index: i, field: `${prefix}.pressureHpa`, message: `must be from above 0 to 1100 hPa, got ${raw}` })
-          }
-          else if (elevationM === undefined) {
-            issues.push({ index: i, field: `${prefix}.pressureHpa`, message: 'a pressure level needs the airfield elevation (elevationM)' })
-          }
-          else {
-            heightAglM = pressureToHeightM(raw) - elevationM
-          }
+          issues.push({ index: i, field: heightField, message: `must be a number, got ${describeValue(raw)}` })
         }
         else {
           const metres = key === 'heightFt' ? raw * M_PER_FT : raw
           if (reference === 'MSL') {
             if (elevationM === undefined) {
-              issues.push({ index: i, field: `${prefix}.${key}`, message: 'heights above mean sea level need the airfield elevation (elevationM)' })
+              issues.push({ index: i, field: heightField, message: 'heights above mean sea level need the airfield elevation (elevationM)' })
             }
             else {
-              heightAglM = metres - elevationM
+              heightAglM = checkHeightAgl(metres - elevationM, true, i, heightField, issues, belowElevation)
             }
           }
           else {
-            heightAglM = metres
+            heightAglM = checkHeightAgl(metres, false, i, heightField, issues, belowElevation)
           }
         }
-        if (heightAglM !== undefined) {
-          if (heightAglM < -GROUND_TOLERANCE_M) {
-            issues.push({ index: i, field: `${prefix}.${key}`, message: `is below the ground (${heightAglM.toFixed(1)} m above ground level after conversion)` })
-            heightAglM = undefined
-          }
-          else if (heightAglM >= MAX_HEIGHT_AGL_M) {
-            issues.push({ index: i, field: `${prefix}.${key}`, message: `must be below 20 km above ground level (${heightAglM.toFixed(0)} m after conversion)` })
-            heightAglM = undefined
-          }
-          else if (heightAglM < 0) {
-            heightAglM = 0
-          }
+        if (hasPressure && !(isFiniteNumber(level.pressureHpa) && level.pressureHpa > 0 && level.pressureHpa <= 1100)) {
+          issues.push({ index: i, field: `${prefix}.pressureHpa`, message: `must be from above 0 to 1100 hPa, got ${describeValue(level.pressureHpa)}` })
+        }
+      }
+
+      let temperatureC: number | undefined
+      if (present(level.temperatureC)) {
+        const raw = level.temperatureC
+        if (!isFiniteNumber(raw) || raw < MIN_TEMPERATURE_C || raw > MAX_TEMPERATURE_C) {
+          issues.push({ index: i, field: `${prefix}.temperatureC`, message: `must be from ${MIN_TEMPERATURE_C} to ${MAX_TEMPERATURE_C} °C, got ${describeValue(raw)}` })
+        }
+        else {
+          temperatureC = raw
         }
       }
 
@@ -190,9 +230,9 @@ export function normaliseProfile(input: unknown): NormalisedProfile {
         issues.push({ index: i, field: `${prefix}.gustKt`, message: 'a gust cannot be lower than the mean speed' })
       }
 
-      // Direction matters only when the air moves.
+      // Direction matters only when the air moves: a gust on a calm mean keeps the direction filed for it.
       let directionDeg = 0
-      if (speedKt !== undefined && speedKt > 0) {
+      if ((speedKt !== undefined && speedKt > 0) || (gustKt !== undefined && gustKt > 0)) {
         const raw = level.directionDeg
         if (!isFiniteNumber(raw) || raw < 0 || raw > 360) {
           issues.push({ index: i, field: `${prefix}.directionDeg`, message: `must be from 0 to 360 degrees, got ${describeValue(raw)}` })
@@ -202,17 +242,29 @@ export function normaliseProfile(input: unknown): NormalisedProfile {
         }
       }
 
-      if (issues.length === before && heightAglM !== undefined && speedKt !== undefined) {
+      if (issues.length === before && speedKt !== undefined && (heightAglM !== undefined || pressureHpa !== undefined)) {
         const uv = windToUV(directionDeg, speedKt)
-        const out: NormalisedLevel = { heightAglM, directionDeg, speedKt, uKt: uv.u, vKt: uv.v, sourceIndex: i }
+        const out: NormalisedLevel = { heightAglM: heightAglM ?? 0, directionDeg, speedKt, uKt: uv.u, vKt: uv.v, heightFrom: 'filed', sourceIndex: i }
         if (gustKt !== undefined) out.gustKt = gustKt
-        levels.push(out)
+        if (temperatureC !== undefined) out.temperatureC = temperatureC
+        if (pressureHpa !== undefined) pending.push({ level: out, pressureHpa, field: heightField })
+        else levels.push(out)
       }
     }
   }
 
+  const standardIndices = placePressureLevels(pending, levels, { elevationM, qnhHpa, surfacePressureHpa }, issues, belowElevation)
+  if (belowElevation.length) {
+    warnings.push({
+      code: 'surface-below-elevation',
+      message: `Level${belowElevation.length > 1 ? 's' : ''} ${belowElevation.join(', ')} ${belowElevation.length > 1 ? 'are' : 'is'} up to ${SURFACE_BELOW_ELEVATION_M} m below the airfield elevation (rounding): taken as the surface.`,
+      indices: belowElevation,
+    })
+  }
+
   const runwayEnds = readRunwayEnds(input.runwayEnds, issues)
   const bounds = readBounds(input.shearClassBoundsKtPer100ft, issues)
+  const paths = readPaths(input.paths, issues)
 
   if (issues.length) throw new WindValidationError(issues)
 
@@ -233,10 +285,14 @@ export function normaliseProfile(input: unknown): NormalisedProfile {
     }
   }
   if (issues.length) throw new WindValidationError(issues)
-  if (usedPressure) {
-    warnings.push({ code: 'standard-atmosphere', message: 'Pressure levels were placed at their ICAO standard atmosphere height; the real height differs with temperature and QNH.' })
+  if (standardIndices.length) {
+    warnings.push({
+      code: 'standard-atmosphere',
+      message: 'Heights from the standard atmosphere: no QNH given. Pressure levels sit where they would on a standard day; with the QNH (or station pressure) and temperatures they are placed as the day is.',
+      indices: standardIndices,
+    })
   }
-  return { levels: merged, runwayEnds, bounds, warnings }
+  return { levels: merged, runwayEnds, bounds, paths, warnings }
 }
 
 function mergeEqualHeights(sorted: NormalisedLevel[], issues: ValidationIssue[], warnings: WindWarning[]): NormalisedLevel[] {
@@ -328,4 +384,124 @@ function readBounds(raw: unknown, issues: ValidationIssue[]): ShearClassBoundsKt
     issues.push({ field: 'shearClassBoundsKtPer100ft', message: 'the bounds must increase: light < moderate < strong' })
   }
   return bounds
+}
+
+function readPressure(input: Record<string, unknown>, key: string, words: string, range: { min: number, max: number },
+  issues: ValidationIssue[]): number | undefined {
+  const raw = input[key]
+  if (!present(raw)) return undefined
+  if (!isFiniteNumber(raw) || raw < range.min || raw > range.max) {
+    issues.push({ field: key, message: `${words} must be from ${range.min} to ${range.max} hPa, got ${describeValue(raw)}` })
+    return undefined
+  }
+  return raw
+}
+
+/** Checks a height above ground; MSL heights up to 1 m below the elevation count as the surface. */
+function checkHeightAgl(heightAglM: number, fromSeaLevel: boolean, index: number, field: string,
+  issues: ValidationIssue[], belowElevation: number[]): number | undefined {
+  if (heightAglM < -GROUND_TOLERANCE_M) {
+    if (fromSeaLevel && heightAglM >= -SURFACE_BELOW_ELEVATION_M - GROUND_TOLERANCE_M) {
+      belowElevation.push(index)
+      return 0
+    }
+    issues.push({ index, field, message: `is below the ground (${heightAglM.toFixed(1)} m above ground level after conversion)` })
+    return undefined
+  }
+  if (heightAglM >= MAX_HEIGHT_AGL_M) {
+    issues.push({ index, field, message: `must be below 20 km above ground level (${heightAglM.toFixed(0)} m after conversion)` })
+    return undefined
+  }
+  return Math.max(0, heightAglM)
+}
+
+/**
+ * Places levels given by pressure, from the ground up in order of falling pressure. Where a level and the one
+ * below it (or the surface) have temperatures, the layer's thickness comes from the hypsometric equation; a level
+ * without a temperature sits where an altimeter set to the station pressure (QFE) or the QNH shows it; with
+ * neither, the ICAO standard atmosphere (the indices are returned for the warning).
+ */
+function placePressureLevels(pending: { level: NormalisedLevel, pressureHpa: number, field: string }[],
+  levels: NormalisedLevel[], ref: { elevationM?: number, qnhHpa?: number, surfacePressureHpa?: number },
+  issues: ValidationIssue[], belowElevation: number[]): number[] {
+  const standard: number[] = []
+  if (!pending.length) return standard
+  const elevationM = ref.elevationM
+  // The pressure at the ground and how it was found.
+  let groundHpa: number
+  let anchor: 'station-pressure' | 'qnh' | 'standard-atmosphere'
+  if (ref.surfacePressureHpa !== undefined) {
+    groundHpa = ref.surfacePressureHpa
+    anchor = 'station-pressure'
+  }
+  else if (ref.qnhHpa !== undefined && elevationM !== undefined) {
+    groundHpa = pressureAtElevationHpa(ref.qnhHpa, elevationM)
+    anchor = 'qnh'
+  }
+  else {
+    groundHpa = heightToPressureHpa(Math.max(0, elevationM ?? 0))
+    anchor = 'standard-atmosphere'
+  }
+  // Above ground level from an altimeter-style reading with no temperature.
+  const noTemperatureAglM = (p: number): number => anchor === 'station-pressure'
+    ? heightAboveReferenceM(p, groundHpa)
+    : anchor === 'qnh'
+      ? heightAboveReferenceM(p, ref.qnhHpa!) - elevationM!
+      : pressureToHeightM(p) - (elevationM ?? 0)
+  // The surface temperature: a filed level at the surface that gives one.
+  let surfaceTemperatureC: number | undefined
+  for (const lv of levels) {
+    if (lv.temperatureC !== undefined && lv.heightAglM <= SURFACE_LEVEL_MAX_AGL_M
+      && (surfaceTemperatureC === undefined || lv.heightAglM === 0)) surfaceTemperatureC = lv.temperatureC
+  }
+  pending.sort((a, b) => b.pressureHpa - a.pressureHpa)
+  let below = { pressureHpa: groundHpa, heightAglM: 0, temperatureC: surfaceTemperatureC }
+  for (const item of pending) {
+    const t = item.level.temperatureC
+    let heightAglM: number
+    if (t !== undefined) {
+      const meanK = ZERO_C_K + (below.temperatureC === undefined ? t : (below.temperatureC + t) / 2)
+      heightAglM = below.heightAglM + hypsometricThicknessM(below.pressureHpa, item.pressureHpa, meanK)
+      item.level.heightFrom = 'hypsometric'
+    }
+    else {
+      heightAglM = noTemperatureAglM(item.pressureHpa)
+      item.level.heightFrom = anchor
+    }
+    if (anchor === 'standard-atmosphere') standard.push(item.level.sourceIndex)
+    const checked = checkHeightAgl(heightAglM, true, item.level.sourceIndex, item.field, issues, belowElevation)
+    if (checked === undefined) continue
+    item.level.heightAglM = checked
+    levels.push(item.level)
+    below = { pressureHpa: item.pressureHpa, heightAglM: checked, temperatureC: t }
+  }
+  return standard.sort((a, b) => a - b)
+}
+
+function readPaths(raw: unknown, issues: ValidationIssue[]): PathGeometry {
+  const settings: PathSettings = { ...DEFAULT_PATH_SETTINGS }
+  if (present(raw)) {
+    if (!isObject(raw)) {
+      issues.push({ field: 'paths', message: 'must be an object of path settings' })
+    }
+    else {
+      for (const key of Object.keys(PATH_RANGES) as (keyof PathSettings)[]) {
+        const value = raw[key]
+        if (!present(value)) continue
+        const range = PATH_RANGES[key]
+        if (!isFiniteNumber(value) || value < range.min || value > range.max) {
+          issues.push({ field: `paths.${key}`, message: `must be from ${range.min} to ${range.max} ${range.unit}, got ${describeValue(value)}` })
+        }
+        else {
+          settings[key] = value
+        }
+      }
+    }
+  }
+  const corridorM = settings.corridorNm * M_PER_NM
+  return {
+    ...settings,
+    arrivalCorridorTopM: corridorM * Math.tan((settings.arrivalGlidePathDeg * Math.PI) / 180),
+    departureCorridorTopM: corridorM * Math.tan((settings.departureClimbDeg * Math.PI) / 180),
+  }
 }

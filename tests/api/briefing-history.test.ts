@@ -22,6 +22,8 @@ describe('briefing input is what was filed', () => {
 
 describe('read receipts across versions', () => {
   it('a receipt is current while its profile is in force and stale once a newer profile supersedes it', async () => {
+    // One rule for receipts and briefings (supersession by time, issue 11): a profile is superseded at a moment when a
+    // newer profile filed for that moment took it over; a receipt is stale while its profile is superseded now.
     const dispatcher = await signedIn('dispatcher')
     const pilot = await signedIn('pilot')
     const { code } = await makeAirfield(dispatcher)
@@ -36,17 +38,28 @@ describe('read receipts across versions', () => {
     expect(seen.body.receipts).toHaveLength(1)
     expect(seen.body.receipts[0]).toMatchObject({ profileId: firstId, stale: false, user: { email: 'pilot@veerline.example' } })
 
-    // Overlapping validity: the new profile supersedes the first (issue 4 history rule).
-    const second = await dispatcher.post(`/api/airfields/${code}/profiles`, profileBody(1, 3, { source: 'aircraft-reports' }))
+    // A newer profile for the last hour only: the first is still the one in force now, so the receipt stays current.
+    const later = await dispatcher.post(`/api/airfields/${code}/profiles`, profileBody(2, 3, { source: 'aircraft-reports' }))
+    expect(later.status).toBe(201)
+    expect(later.body.profile.supersededIds).toEqual([firstId])
+    seen = await dispatcher.get(`/api/receipts?profile=${firstId}`)
+    expect(seen.body.receipts[0]).toMatchObject({ stale: false, staleReason: null })
+    expect((await pilot.get(`/api/airfields/${code}/briefing?profile=${firstId}`)).body.briefing.profile.status).toBe('current')
+
+    // A newer profile for now: the receipt is stale and says by which profile; the old briefing says superseded.
+    const second = await dispatcher.post(`/api/airfields/${code}/profiles`, profileBody(0, 1, { source: 'aircraft-reports' }))
     expect(second.status).toBe(201)
     expect(second.body.profile.supersededIds).toEqual([firstId])
-
     seen = await dispatcher.get(`/api/receipts?profile=${firstId}`)
     expect(seen.body.receipts[0].stale).toBe(true)
     expect(seen.body.receipts[0].staleReason).toContain(`superseded by profile ${second.body.profile.id}`)
     // The briefing of the old version says so in plain words.
     const old = await pilot.get(`/api/airfields/${code}/briefing?profile=${firstId}`)
     expect(old.body.briefing.profile.status).toBe('superseded')
+    expect(old.body.briefing.profile.supersededById).toBe(second.body.profile.id)
+    // It is still in force between the two newer ones (hour 1 to 2): the briefing for then uses it.
+    const between = new Date(Date.parse(first.body.profile.validFrom) + 90 * 60_000).toISOString()
+    expect((await pilot.get(`/api/airfields/${code}/briefing?at=${between}`)).body.briefing.profile.id).toBe(firstId)
   })
 
   it('dispatchers see every pilot\'s receipt; a pilot sees only their own', async () => {

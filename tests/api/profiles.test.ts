@@ -79,9 +79,9 @@ describe('supersession and withdrawal', () => {
     const { code } = await makeAirfield(dispatcher)
     const first = await dispatcher.post(`/api/airfields/${code}/profiles`, profileBody(0, 3))
     const apart = await dispatcher.post(`/api/airfields/${code}/profiles`, profileBody(5, 2))
-    const second = await dispatcher.post(`/api/airfields/${code}/profiles`, profileBody(2, 2))
+    const second = await dispatcher.post(`/api/airfields/${code}/profiles`, profileBody(0, 4))
     expect(second.status).toBe(201)
-    // 0-3 h overlaps 2-4 h; 5-7 h does not
+    // 0-4 h covers all of 0-3 h (supersession by time: the whole of it); 5-7 h does not overlap
     expect(second.body.profile.supersededIds).toEqual([first.body.profile.id])
     const old = await dispatcher.get(`/api/profiles/${first.body.profile.id}`)
     expect(old.body.profile).toMatchObject({ status: 'superseded', supersededById: second.body.profile.id })

@@ -29,6 +29,8 @@ const MATRIX: Record<string, Access & { fresh?: boolean }> = {
   'GET /api/airfields/[code]/profiles': ANY,
   'POST /api/airfields/[code]/profiles': filer,
   'POST /api/airfields/[code]/profiles/import': filer,
+  'POST /api/airfields/[code]/profiles/periods': filer,
+  'GET /api/airfields/[code]/profiles/supersedes': filer,
   'POST /api/airfields/[code]/runways': roles('dispatcher', 'admin'),
   'PATCH /api/airfields/[code]/runways/[id]': roles('dispatcher', 'admin'),
   'GET /api/airfields/[code]/trend': ANY,

@@ -70,5 +70,5 @@ describe('limits and alerts in the browser', () => {
     expect(await mail.first().textContent()).toContain('Limit: 18 kt')
     await screenshot(admin, 'mailbox')
     await adminCtx.close()
-  })
+  }, 120_000) // a hang guard for a loaded machine, not a speed check
 })

@@ -28,16 +28,23 @@ describe('a dispatcher files profiles', () => {
     await page.fill('input[name="direction-1"]', '240')
     await page.fill('input[name="speed-1"]', '35')
     await page.click('text=Add level')
-    await page.fill('input[name="height-2"]', '150')
-    await page.locator('input[name="height-2"]').blur()
-    // kept in height order: the 150 m level moves between 10 m and 300 m
-    await expect.poll(() => page.locator('input[name="height-1"]').inputValue()).toBe('150')
-    await page.fill('input[name="direction-1"]', '220')
-    await page.fill('input[name="speed-1"]', '25')
+    // Type the new bottom row the way a person does: height, Tab, direction, Tab, speed. The row keeps its place,
+    // so nothing typed lands in the 300 m level.
+    await page.click('input[name="height-2"]')
+    await page.keyboard.type('150')
+    await page.keyboard.press('Tab')
+    await page.keyboard.type('220')
+    await page.keyboard.press('Tab')
+    await page.keyboard.type('25')
+    await page.keyboard.press('Tab')
+    const row = async (i: number) => Promise.all(['height', 'direction', 'speed'].map(c => page.locator(`input[name="${c}-${i}"]`).inputValue()))
+    expect(await row(0)).toEqual(['10', '200', '12'])
+    expect(await row(1)).toEqual(['300', '240', '35'])
+    expect(await row(2)).toEqual(['150', '220', '25'])
     // the live preview answers for runway 18 and 36 of the test field
     await expect.poll(() => page.locator('[data-test="profile-preview"]').textContent(), { timeout: 10_000 }).toContain('kt head')
     await screenshot(page, 'profile-entry-table')
-    await Promise.all([page.waitForURL(new RegExp(`/airfields/${code}$`)), page.click('[data-test="file-table"]')])
+    await Promise.all([page.waitForURL(new RegExp(`/airfields/${code}(\\?|$)`)), page.click('[data-test="file-table"]')])
 
     await page.goto(`/airfields/${code}/file`)
     await page.waitForLoadState('networkidle')
@@ -46,7 +53,7 @@ describe('a dispatcher files profiles', () => {
       buffer: Buffer.from('height_ft,direction_deg,speed_kt,gust_kt\n33,190,14,24\n1000,230,30,\n2000,250,42,\n'),
     })
     await expect.poll(() => page.locator('[data-test="file-upload"]').textContent()).toContain('File 3 levels')
-    await Promise.all([page.waitForURL(new RegExp(`/airfields/${code}$`)), page.click('[data-test="file-upload"]')])
+    await Promise.all([page.waitForURL(new RegExp(`/airfields/${code}(\\?|$)`)), page.click('[data-test="file-upload"]')])
 
     const rows = page.locator('[data-test="profile-list"] tbody tr')
     await expect.poll(() => rows.count()).toBe(2)
@@ -58,6 +65,32 @@ describe('a dispatcher files profiles', () => {
     await screenshot(page, 'profile-list')
     const foreign = requests.filter(u => !/^(https?|wss?):\/\/127\.0\.0\.1(:\d+)?\//.test(u) && !u.startsWith('data:'))
     expect(foreign).toEqual([])
+    await context.close()
+  })
+})
+
+describe('the upload preview', () => {
+  it('shows the file as a table in its own columns, the bad row marked with the column and what is wrong', async () => {
+    const { code } = await makeAirfield(await signedIn('dispatcher'))
+    const { context } = await newContext(browser)
+    const page = await context.newPage()
+    await signInPage(page, 'dispatcher')
+    await page.goto(`/airfields/${code}/file`)
+    await page.waitForLoadState('networkidle')
+    await page.setInputFiles('[data-test="profile-file"]', {
+      name: 'levels.csv', mimeType: 'text/csv',
+      buffer: Buffer.from('height_m,direction_deg,speed_kt\n10,180,5\n150,361,10\n300,200,12\n'),
+    })
+    await expect.poll(() => page.locator('[data-test="upload-row-bad"]').count()).toBe(1)
+    const head = await page.locator('[data-test="upload-table"] thead').textContent()
+    expect(head).toContain('direction_deg')
+    const bad = await page.locator('[data-test="upload-row-bad"]').textContent()
+    expect(bad).toContain('3')
+    expect(bad).toContain('direction_deg:')
+    expect(await page.locator('[data-test="upload-table"]').textContent()).not.toContain('directionDeg')
+    expect(await page.locator('[data-test="upload-row"]').count()).toBe(2)
+    expect(await page.locator('[data-test="file-upload"]').isDisabled()).toBe(true)
+    await screenshot(page, 'upload-preview-table')
     await context.close()
   })
 })

@@ -88,7 +88,7 @@ describe('profile entry: the level table', () => {
     e.addLevel()
     const typed = [850, 1000, 925]
     typed.forEach((hPa, i) => Object.assign(e.fields.value[i]!.value, { pressureHpa: hPa, directionDeg: 270, speedKt: 20 }))
-    e.sortLevels()
+    e.sortRows()
     await nextTick()
     expect(rows(e).map(r => r.pressureHpa)).toEqual([1000, 925, 850])
     expect(sortedLevels([{ heightM: 300 }, { heightM: undefined }, { heightM: 10 }], 'heightM').map(r => r.heightM)).toEqual([10, 300, undefined])

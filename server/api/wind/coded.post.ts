@@ -1,14 +1,18 @@
 import { z } from 'zod'
-import { parseCodedLines } from '../../domain/profiles/import/coded'
-import { profileIssuesError } from '../../domain/profiles/filing'
+import { airfieldCodeSchema } from '#shared/utils/airfield-schema'
+import { loadAirfield } from '../../domain/airfields/lookup'
+import { readCodedPaste } from '../../domain/profiles/coded-paste'
 
-const bodySchema = z.object({ text: z.string({ required_error: 'Paste one or more report lines' }).min(1, 'Paste one or more report lines').max(20_000, 'At most 20,000 characters') }).strict()
+const bodySchema = z.object({
+  text: z.string({ required_error: 'Paste one or more report lines' }).min(1, 'Paste one or more report lines').max(20_000, 'At most 20,000 characters'),
+  airfield: airfieldCodeSchema.optional(),
+}).strict()
 
-// Reads pasted METAR/SPECI/TAF lines into levels (METAR surface wind at 10 m, TAF WShhh/dddffKT groups), saving nothing.
+// Reads pasted METAR/SPECI/TAF lines into levels, periods, times and runway wind shear, saving nothing. With an
+// airfield, each report's station and age are checked: the warnings must be confirmed before filing.
 export default defineApiHandler(async (event) => {
   await requireCapability(event, 'file-profile')
   const body = await readBodyWith(event, bodySchema)
-  const result = parseCodedLines(body.text)
-  if (result.issues.length) throw profileIssuesError(result.issues, 'Some report lines could not be read')
-  return result
+  const airfield = body.airfield ? await loadAirfield(body.airfield) : null
+  return readCodedPaste(body.text, airfield)
 })

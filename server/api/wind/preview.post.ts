@@ -12,17 +12,18 @@ export default defineApiHandler(async (event) => {
   const body = await readLimitedJson(event)
   const parsed = windPreviewSchema.safeParse(body.value)
   if (!parsed.success) throw zodProfileError(parsed.error)
-  const { levels, heightReference, airfield: code, runwayEnds, elevationM } = parsed.data
+  const { levels, heightReference, airfield: code, runwayEnds, elevationM, qnhHpa, surfacePressureHpa } = parsed.data
+  const pressures = { ...(qnhHpa === undefined ? {} : { qnhHpa }), ...(surfacePressureHpa === undefined ? {} : { surfacePressureHpa }) }
   let input
   let declination = null
   if (code) {
     const airfield = await loadAirfield(code)
     const ends = await useDB().select().from(schema.runwayEnds).where(eq(schema.runwayEnds.airfieldId, airfield.id))
     declination = declinationToday(airfield)
-    input = { levels, heightReference, elevationM: airfield.elevationM, runwayEnds: runwayEndInputsOf(ends, declination?.declinationDeg ?? null) }
+    input = { levels, heightReference, elevationM: airfield.elevationM, runwayEnds: runwayEndInputsOf(ends, declination?.declinationDeg ?? null), ...pressures }
   }
   else {
-    input = { levels, heightReference, elevationM, runwayEnds: runwayEnds ?? [] }
+    input = { levels, heightReference, elevationM, runwayEnds: runwayEnds ?? [], ...pressures }
   }
   try {
     return { analysis: analyseProfile(input), declination }

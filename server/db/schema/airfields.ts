@@ -1,4 +1,4 @@
-import { mysqlTable, int, varchar, datetime, double, text, mysqlEnum, uniqueIndex, index } from 'drizzle-orm/mysql-core'
+import { mysqlTable, int, varchar, datetime, double, text, mysqlEnum, uniqueIndex, index, json } from 'drizzle-orm/mysql-core'
 import { sql } from 'drizzle-orm'
 
 export const airfields = mysqlTable('airfields', {
@@ -15,6 +15,10 @@ export const airfields = mysqlTable('airfields', {
   magVarOverrideDeg: double('mag_var_override_deg'),
   magVarOverrideReason: varchar('mag_var_override_reason', { length: 255 }),
   notes: text('notes'),
+  // The location indicator its coded reports carry; null: the airfield's code.
+  reportingStation: varchar('reporting_station', { length: 4 }),
+  // Approach and departure geometry for the corridor check and the F-factor; null: the engine's defaults.
+  pathSettings: json('path_settings').$type<Partial<{ corridorNm: number, arrivalGlidePathDeg: number, arrivalTrueAirspeedKt: number, departureClimbDeg: number, departureTrueAirspeedKt: number }> | null>(),
   createdAt: datetime('created_at', { mode: 'date', fsp: 3 }).notNull().default(sql`CURRENT_TIMESTAMP(3)`),
   updatedAt: datetime('updated_at', { mode: 'date', fsp: 3 }).notNull().default(sql`CURRENT_TIMESTAMP(3)`),
 }, t => [uniqueIndex('airfields_code').on(t.code)])

@@ -14,6 +14,7 @@ export type LimitValues = {
   maxLayerShearKtPer100ft: number | null
   maxVectorDiff600mKt: number | null
   maxAirspeedLossKt: number | null
+  maxFFactor: number | null
   nearLimitMarginPct: number | null
 }
 
@@ -29,6 +30,7 @@ export const thresholdSets = mysqlTable('threshold_sets', {
   maxLayerShearKtPer100ft: double('max_layer_shear_kt_per_100ft'),
   maxVectorDiff600mKt: double('max_vector_diff_600m_kt'),
   maxAirspeedLossKt: double('max_airspeed_loss_kt'),
+  maxFFactor: double('max_f_factor'),
   nearLimitMarginPct: double('near_limit_margin_pct'),
   updatedByUserId: int('updated_by_user_id').references(() => users.id),
   updatedAt: at('updated_at').notNull().default(now),

@@ -29,6 +29,15 @@ export const profiles = mysqlTable('profiles', {
   // How the levels were entered, for showing them back: { height: 'm'|'ft'|'hPa', speed: 'kt'|'mps' }, entry: 'table'|'file'|'coded'|'api'
   entry: json('entry').$type<{ height?: string, speed?: string, method?: string }>(),
   notes: text('notes'),
+  // Pressure references of the day (hPa), used to place pressure levels.
+  qnhHpa: double('qnh_hpa'),
+  surfacePressureHpa: double('surface_pressure_hpa'),
+  // The coded report lines as pasted (source 'coded-report').
+  rawReport: text('raw_report'),
+  // The observation time of the coded report's first METAR/SPECI: the briefing dates the data's age from it.
+  observedAt: datetime('observed_at', { mode: 'date', fsp: 3 }),
+  // Runway wind shear groups of the report (WS Rnn, WS ALL RWY, WS LDG/TKOF RWYnn), kept for the briefing.
+  reportedWindShear: json('reported_wind_shear').$type<ReportedWindShear | null>(),
   createdAt: datetime('created_at', { mode: 'date', fsp: 3 }).notNull().default(sql`CURRENT_TIMESTAMP(3)`),
 }, t => [
   index('profiles_airfield_valid').on(t.airfieldId, t.validFrom, t.validTo),
@@ -50,7 +59,22 @@ export const profileLevels = mysqlTable('profile_levels', {
   speedMps: double('speed_mps'),
   gustKt: double('gust_kt'),
   gustMps: double('gust_mps'),
+  temperatureC: double('temperature_c'),
 }, t => [index('profile_levels_profile').on(t.profileId, t.seq)])
 
+// Supersession by time: profile_id is superseded by superseded_by_id over [from_at, to_at). Only ever inserted.
+export const profileSupersessions = mysqlTable('profile_supersessions', {
+  id: int('id').autoincrement().primaryKey(),
+  profileId: int('profile_id').notNull().references(() => profiles.id),
+  supersededById: int('superseded_by_id').notNull().references(() => profiles.id),
+  fromAt: datetime('from_at', { mode: 'date', fsp: 3 }).notNull(),
+  toAt: datetime('to_at', { mode: 'date', fsp: 3 }).notNull(),
+  createdAt: datetime('created_at', { mode: 'date', fsp: 3 }).notNull().default(sql`CURRENT_TIMESTAMP(3)`),
+}, t => [index('profile_supersessions_profile').on(t.profileId), index('profile_supersessions_by').on(t.supersededById)])
+
+/** Runway wind shear reported in a coded report: the runway ends named, or all of them. */
+export type ReportedWindShear = { allRunways: boolean, runways: string[], groups: string[], report: string, observedAt: string | null }
+
 export type Profile = typeof profiles.$inferSelect
+export type ProfileSupersession = typeof profileSupersessions.$inferSelect
 export type ProfileLevel = typeof profileLevels.$inferSelect

@@ -14,9 +14,10 @@ type Row = Record<string, any>
 const brief = (id: number | null, validFrom: Date | null, validTo: Date | null, source: string | null) =>
   id == null ? null : { id, validFrom: validFrom!.toISOString(), validTo: validTo!.toISOString(), source: source! }
 
-// The first active profile per airfield among those still valid at `now` (through the (status, valid_to) index).
-const firstValid = (also: string) => `(SELECT w.* FROM (SELECT q.id, q.airfield_id, q.valid_from, q.valid_to, q.source,
-    ROW_NUMBER() OVER (PARTITION BY q.airfield_id ORDER BY q.valid_from ASC, q.id ASC) AS rn
+// One active profile per airfield among those still valid at `now` (through the (status, valid_to) index), the
+// first in `order`: in force now is the newest filed (supersession by time), next is the earliest to begin.
+const firstValid = (also: string, order: string) => `(SELECT w.* FROM (SELECT q.id, q.airfield_id, q.valid_from, q.valid_to, q.source,
+    ROW_NUMBER() OVER (PARTITION BY q.airfield_id ORDER BY ${order}) AS rn
     FROM profiles q WHERE q.status = 'active' AND q.valid_to > ? AND ${also}) w WHERE w.rn = 1)`
 
 export async function readAirfieldList(now = new Date()) {
@@ -27,8 +28,8 @@ export async function readAirfieldList(now = new Date()) {
      FROM airfields a
      LEFT JOIN (SELECT e.airfield_id, GROUP_CONCAT(e.designator ORDER BY e.designator SEPARATOR ',') AS designators
        FROM runway_ends e GROUP BY e.airfield_id) es ON es.airfield_id = a.id
-     LEFT JOIN ${firstValid('q.valid_from <= ?')} c ON c.airfield_id = a.id
-     LEFT JOIN ${firstValid('q.valid_from > ?')} n ON n.airfield_id = a.id
+     LEFT JOIN ${firstValid('q.valid_from <= ?', 'q.id DESC')} c ON c.airfield_id = a.id
+     LEFT JOIN ${firstValid('q.valid_from > ?', 'q.valid_from ASC, q.id ASC')} n ON n.airfield_id = a.id
      ORDER BY a.code`,
     [now, now, now, now],
   ) as [Row[], unknown]
@@ -37,6 +38,7 @@ export async function readAirfieldList(now = new Date()) {
       id: r.id, code: r.code, name: r.name, latitudeDeg: r.latitude_deg, longitudeDeg: r.longitude_deg, elevationM: r.elevation_m,
       elevationUnit: r.elevation_unit, magVarOverrideDeg: r.mag_var_override_deg, magVarOverrideReason: r.mag_var_override_reason,
       notes: r.notes, createdAt: r.created_at, updatedAt: r.updated_at,
+      reportingStation: r.reporting_station, pathSettings: typeof r.path_settings === 'string' ? JSON.parse(r.path_settings) : (r.path_settings ?? null),
     }
     const cur = brief(r.c_id, r.c_valid_from, r.c_valid_to, r.c_source)
     const nxt = brief(r.n_id, r.n_valid_from, r.n_valid_to, r.n_source)

@@ -11,6 +11,14 @@ import { effectiveLimits } from './limits'
 import { evaluateLimits, type LimitCheck } from '../../../shared/limits'
 import { planAlerts, type ProfileFacts } from './plan'
 import { enqueueAlertNotices } from './outbox'
+import { inForceFrom, supersededAt, type ProfileSpan } from '../profiles/supersession'
+
+/** Active profiles with the parts of their validity newer profiles took over. */
+async function spansOf(tx: Tx, rows: { id: number, validFrom: Date, validTo: Date }[]): Promise<ProfileSpan[]> {
+  const s = schema.profileSupersessions
+  const records = rows.length ? await tx.select().from(s).where(inArray(s.profileId, rows.map(r => r.id))) : []
+  return rows.map(r => ({ ...r, superseded: records.filter(x => x.profileId === r.id).map(x => ({ from: x.fromAt, to: x.toAt, byId: x.supersededById })) }))
+}
 
 export interface EvaluationSummary { airfieldId: number, raised: number[], cleared: number[], carried: number[], updated: number[] }
 
@@ -41,14 +49,18 @@ export async function evaluateAirfield(tx: Tx, airfieldId: number, options: Eval
   await tx.execute(sql`SELECT id FROM airfields WHERE id = ${airfieldId} FOR UPDATE`)
 
   const p = schema.profiles
-  const inForce = await tx.select({ id: p.id }).from(p)
+  const active = await tx.select({ id: p.id, validFrom: p.validFrom, validTo: p.validTo, reportedWindShear: p.reportedWindShear }).from(p)
     .where(and(eq(p.airfieldId, airfieldId), eq(p.status, 'active'), gt(p.validTo, now)))
+  // Supersession by time: an active profile whose time from now on is all taken over by newer ones is not in force.
+  const spans = await spansOf(tx, active)
+  const inForce = spans.filter(s => inForceFrom(s, now))
   const known = options.analyses ?? new Map<number, ProfileAnalysis>()
   const loaded = await loadAndAnalyseProfiles(inForce.map(r => r.id).filter(id => !known.has(id)), tx)
   const analysisOf = new Map<number, ProfileAnalysis>([...known, ...loaded.map(a => [a.profile.id, a.analysis] as const)])
   const lim = await effectiveLimits(airfieldId, tx)
+  const shearOf = new Map(active.map(r => [r.id, r.reportedWindShear ?? null]))
   const candidates = inForce.filter(r => analysisOf.has(r.id))
-    .map(r => ({ profileId: r.id, checks: evaluateLimits(analysisOf.get(r.id)!, lim.limits, lim.limitsFor) }))
+    .map(r => ({ profileId: r.id, checks: evaluateLimits(analysisOf.get(r.id)!, lim.limits, lim.limitsFor, shearOf.get(r.id) ?? null) }))
 
   const a = schema.alerts
   const existing = await tx.select().from(a).where(and(eq(a.airfieldId, airfieldId),
@@ -57,7 +69,15 @@ export async function evaluateAirfield(tx: Tx, airfieldId: number, options: Eval
   const facts = profileIds.length
     ? await tx.select({ id: p.id, status: p.status, supersededById: p.supersededById, validTo: p.validTo }).from(p).where(inArray(p.id, profileIds))
     : []
-  const plan = planAlerts({ now, candidates, existing, profiles: new Map<number, ProfileFacts>(facts.map(f => [f.id, f])) })
+  // A profile still 'active' but no longer in force is, for its alerts, superseded by the profile in force now.
+  const takenOver = new Map(spans.filter(s => !inForceFrom(s, now)).map(s => [s.id, s]))
+  const factsNow = facts.map((f): ProfileFacts => {
+    const span = takenOver.get(f.id)
+    if (!span || f.status !== 'active') return f
+    const by = supersededAt(span, now)?.byId ?? Math.max(...span.superseded.map(i => i.byId ?? 0))
+    return { ...f, status: 'superseded', supersededById: by || null }
+  })
+  const plan = planAlerts({ now, candidates, existing, profiles: new Map<number, ProfileFacts>(factsNow.map(f => [f.id, f])) })
 
   const summary: EvaluationSummary = { airfieldId, raised: [], cleared: [], carried: [], updated: [] }
   const because = (text: string) => (options.cause ? `${text}, ${options.cause}` : text).slice(0, 300)

@@ -26,6 +26,9 @@ const KIND_TITLES: Record<string, string> = {
   'airspeed-loss-departure': 'Airspeed loss on departure',
   'layer-shear': 'Layer shear',
   'vector-difference': 'Vector difference surface to 600 m',
+  'f-factor-arrival': 'F-factor on arrival (1 km, horizontal wind only)',
+  'f-factor-departure': 'F-factor on departure (1 km, horizontal wind only)',
+  'reported-wind-shear': 'Wind shear reported',
 }
 export const kindTitle = (kind: string) => KIND_TITLES[kind] ?? kind
 

@@ -6,7 +6,7 @@
 import type { Airfield, Profile, RunwayEnd } from '../../db/schema'
 import { runwayComponents, uvToWind, GRID_TOP_M, type GridPoint, type ProfileAnalysis, type RunwayEndAnalysis } from '../../../shared/wind'
 import { evaluateLimits, type LimitCheck, type Limits } from '../../../shared/limits'
-import { levelInputsOf, runwayEndInputsOf, type StoredProfileAnalysis } from '../profiles/analysis'
+import { levelInputsOf, pressureInputsOf, runwayEndInputsOf, type StoredProfileAnalysis } from '../profiles/analysis'
 import { eq, schema, useDB } from '../../utils/db'
 import { M_PER_FT } from '../../../shared/units'
 import { loadAirfield } from '../airfields/lookup'
@@ -31,9 +31,12 @@ export const STATUS_WORDS: Record<ProfileStatus, string> = {
   withdrawn: 'Withdrawn: do not use',
 }
 
-/** Where a profile stands at `at` (now unless a time was chosen). Withdrawn and superseded override validity. */
-export function profileStatus(p: Pick<Profile, 'status' | 'validFrom' | 'validTo'>, at: Date): ProfileStatus {
-  return profileStatusAt(p, at)
+/**
+ * Where a profile stands at `at` (now unless a time was chosen). Withdrawn and superseded override validity.
+ * `supersededThen`: a supersession record covers `at` (supersession by time: it may be in force at other times).
+ */
+export function profileStatus(p: Pick<Profile, 'status' | 'validFrom' | 'validTo'>, at: Date, supersededThen = false): ProfileStatus {
+  return profileStatusAt(p, at, supersededThen)
 }
 
 export type RankedEnd = {
@@ -124,7 +127,7 @@ export function publicAirfield(a: Airfield, ends: RunwayEnd[]) {
  */
 export function assembleBriefing(stored: StoredProfileAnalysis, limitSet: BriefingLimits, change: BriefingChange | null = null) {
   const { analysis, profile, airfield, runwayEnds, declination } = stored
-  const checks = evaluateLimits(analysis, limitSet.limits, limitSet.limitsFor)
+  const checks = evaluateLimits(analysis, limitSet.limits, limitSet.limitsFor, profile.reportedWindShear ?? null)
   const ranking = rankRunwayEnds(analysis.runwayEnds, checks)
   const ends = analysis.runwayEnds.map((end) => {
     const own = checks.filter(c => c.designator === end.designator)
@@ -155,6 +158,8 @@ export function assembleBriefing(stored: StoredProfileAnalysis, limitSet: Briefi
       heightReference: profile.heightReference,
       elevationM: airfield.elevationM,
       runwayEnds: runwayEndInputsOf(runwayEnds, declination.declinationDeg),
+      // QNH, station pressure and the airfield's path settings: without them a re-run would place levels otherwise.
+      ...pressureInputsOf(profile, airfield),
     },
     levels: analysis.levels,
     grid: analysis.grid,

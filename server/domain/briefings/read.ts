@@ -6,7 +6,7 @@
  */
 import { createHash } from 'node:crypto'
 import type { Airfield, Profile, RunwayEnd, ThresholdSet } from '../../db/schema'
-import { asc, inArray, schema, usePool, useDB } from '../../utils/db'
+import { asc, inArray, or, schema, usePool, useDB } from '../../utils/db'
 import { analyseStored } from '../profiles/analysis'
 import { assembleBriefing, publicAirfield, rankRunwayEnds, type Briefing } from './briefing'
 import { DEFAULT_STALE_AFTER_MIN, profileAges, profileStatusAt, statusWordsAt } from '../../../shared/briefing/status'
@@ -28,11 +28,11 @@ const CAUTION_JSON = JSON.stringify(VEERLINE_CAUTION)
 const ENDS_SIG = `GROUP_CONCAT(CONCAT_WS(',', e.id, e.runway_id, e.designator, e.true_heading_deg) ORDER BY e.id SEPARATOR ';')`
 const LIMITS_SIG = `GROUP_CONCAT(CONCAT_WS(',', t.id, t.scope_key, t.updated_at, IFNULL(t.max_crosswind_kt, '~'),
   IFNULL(t.max_tailwind_kt, '~'), IFNULL(t.max_layer_shear_kt_per_100ft, '~'), IFNULL(t.max_vector_diff_600m_kt, '~'),
-  IFNULL(t.max_airspeed_loss_kt, '~'), IFNULL(t.near_limit_margin_pct, '~')) ORDER BY t.id SEPARATOR ';')`
+  IFNULL(t.max_airspeed_loss_kt, '~'), IFNULL(t.max_f_factor, '~'), IFNULL(t.near_limit_margin_pct, '~')) ORDER BY t.id SEPARATOR ';')`
 const ORG_LIMITS_SQL = `(SELECT ${LIMITS_SIG} FROM threshold_sets t WHERE t.scope_key = 'org')`
 const stampSql = (endsSig: string, fieldLimitsSig: string) => `MD5(CONCAT_WS('|', a.id, a.code, a.name, a.updated_at,
   a.latitude_deg, a.longitude_deg, a.elevation_m, IFNULL(a.mag_var_override_deg, '~'), IFNULL(a.mag_var_override_reason, '~'),
-  IFNULL(${endsSig}, '~'), IFNULL(${ORG_LIMITS_SQL}, '~'), IFNULL(${fieldLimitsSig}, '~')))`
+  IFNULL(a.path_settings, '~'), IFNULL(${endsSig}, '~'), IFNULL(${ORG_LIMITS_SQL}, '~'), IFNULL(${fieldLimitsSig}, '~')))`
 /** The digest of one airfield's analysis inputs (row `a`): its row, runway ends and limit sets. */
 export const STAMP_ONE_SQL = stampSql(`(SELECT ${ENDS_SIG} FROM runway_ends e WHERE e.airfield_id = a.id)`,
   `(SELECT ${LIMITS_SIG} FROM threshold_sets t WHERE t.airfield_id = a.id)`)
@@ -41,20 +41,27 @@ const ENDS_BY_AIRFIELD_SQL = `(SELECT e.airfield_id, ${ENDS_SIG} AS sig,
 const LIMITS_BY_AIRFIELD_SQL = `(SELECT t.airfield_id, ${LIMITS_SIG} AS sig FROM threshold_sets t
   WHERE t.airfield_id IS NOT NULL GROUP BY t.airfield_id)`
 
+// Supersession by time: the newer profile that took over the moment given (twice, as two placeholders), or NULL.
+const SUPERSEDED_NOW_SQL = `(SELECT s.superseded_by_id FROM profile_supersessions s WHERE s.profile_id = p.id
+    AND s.from_at <= ? AND s.to_at > ? ORDER BY s.superseded_by_id DESC LIMIT 1)`
+// The columns of the profile read with a briefing; their placeholders come first: the chosen time twice, then now twice.
 const PROFILE_COLUMNS = `p.id AS p_id, p.valid_from AS p_valid_from, p.valid_to AS p_valid_to, p.source AS p_source,
   p.height_reference AS p_height_reference, p.status AS p_status, p.superseded_by_id AS p_superseded_by_id,
-  p.withdrawn_reason AS p_withdrawn_reason, p.notes AS p_notes, p.created_at AS p_created_at`
+  p.withdrawn_reason AS p_withdrawn_reason, p.notes AS p_notes, p.created_at AS p_created_at,
+  p.qnh_hpa AS p_qnh_hpa, p.surface_pressure_hpa AS p_surface_pressure_hpa, p.raw_report AS p_raw_report, p.observed_at AS p_observed_at,
+  p.reported_wind_shear AS p_reported_wind_shear, ${SUPERSEDED_NOW_SQL} AS p_superseded_then_by,
+  ${SUPERSEDED_NOW_SQL} AS p_superseded_now_by`
 
 // The profile a briefing is for: the newest active one valid at `at`, else the newest not withdrawn begun by `at`.
 const LATEST_BEGUN_SQL = `(SELECT q.id FROM profiles q WHERE q.airfield_id = a.id AND q.status <> 'withdrawn' AND q.valid_from <= ?
     ORDER BY q.valid_from DESC, q.id DESC LIMIT 1)`
 const IN_FORCE_SQL = `COALESCE(
   (SELECT q.id FROM profiles q WHERE q.airfield_id = a.id AND q.status = 'active' AND q.valid_from <= ? AND q.valid_to >= ?
-    ORDER BY q.valid_from DESC, q.id DESC LIMIT 1), ${LATEST_BEGUN_SQL})`
+    ORDER BY q.id DESC LIMIT 1), ${LATEST_BEGUN_SQL})`
 // The same for every airfield at once: the valid ones through the (status, valid_to) index, the fallback only
 // where none is valid (COALESCE stops at the first value).
 const VALID_BY_AIRFIELD_SQL = `(SELECT w.id, w.airfield_id FROM (SELECT q.id, q.airfield_id,
-    ROW_NUMBER() OVER (PARTITION BY q.airfield_id ORDER BY q.valid_from DESC, q.id DESC) AS rn
+    ROW_NUMBER() OVER (PARTITION BY q.airfield_id ORDER BY q.id DESC) AS rn
     FROM profiles q WHERE q.status = 'active' AND q.valid_to >= ? AND q.valid_from <= ?) w WHERE w.rn = 1)`
 
 // A raw mysql2 row: its columns are typed where they are read.
@@ -66,8 +73,14 @@ function profileOf(r: Row, airfieldId: number) {
     id: r.p_id, airfieldId, validFrom: r.p_valid_from, validTo: r.p_valid_to, source: r.p_source,
     heightReference: r.p_height_reference, status: r.p_status, supersededById: r.p_superseded_by_id,
     withdrawnReason: r.p_withdrawn_reason, notes: r.p_notes, createdAt: r.p_created_at,
+    qnhHpa: r.p_qnh_hpa, surfacePressureHpa: r.p_surface_pressure_hpa, rawReport: r.p_raw_report, observedAt: r.p_observed_at ?? null,
+    // MariaDB keeps JSON as text: read it back as drizzle would.
+    reportedWindShear: typeof r.p_reported_wind_shear === 'string' ? JSON.parse(r.p_reported_wind_shear) : (r.p_reported_wind_shear ?? null),
+    supersededThenById: (r.p_superseded_then_by as number | null) ?? null,
+    supersededNowById: (r.p_superseded_now_by as number | null) ?? null,
   } as Pick<Profile, 'id' | 'airfieldId' | 'validFrom' | 'validTo' | 'source' | 'heightReference' | 'status'
-  | 'supersededById' | 'withdrawnReason' | 'notes' | 'createdAt'>
+  | 'supersededById' | 'withdrawnReason' | 'notes' | 'createdAt' | 'qnhHpa' | 'surfacePressureHpa' | 'rawReport' | 'observedAt' | 'reportedWindShear'>
+  & { supersededThenById: number | null, supersededNowById: number | null }
 }
 
 type ProfileHead = ReturnType<typeof profileOf>
@@ -118,7 +131,13 @@ async function computeMany(items: { key: string, precision: Precision, profile: 
   const airfieldIds = [...new Set(items.map(i => i.airfield.id))]
   const profileIds = [...new Set(items.map(i => i.profile.id))]
   // The profiles these ones superseded: the briefing shows what changed against the newest of them.
-  const previousRows = await db.select().from(schema.profiles).where(inArray(schema.profiles.supersededById, profileIds))
+  // Supersession by time keeps a record per profile taken over (in part or whole); older rows only have supersededById.
+  const s = schema.profileSupersessions
+  const records = await db.select({ profileId: s.profileId, byId: s.supersededById }).from(s).where(inArray(s.supersededById, profileIds))
+  const previousIds = new Map<number, Set<number>>()
+  for (const r of records) previousIds.set(r.profileId, (previousIds.get(r.profileId) ?? new Set()).add(r.byId))
+  const previousRows = await db.select().from(schema.profiles).where(or(inArray(schema.profiles.supersededById, profileIds),
+    inArray(schema.profiles.id, [0, ...previousIds.keys()])))
   const [endRows, levelRows, limitRows] = await Promise.all([
     db.select().from(schema.runwayEnds).where(inArray(schema.runwayEnds.airfieldId, airfieldIds)),
     db.select().from(schema.profileLevels).where(inArray(schema.profileLevels.profileId, [...profileIds, ...previousRows.map(p => p.id)]))
@@ -131,15 +150,17 @@ async function computeMany(items: { key: string, precision: Precision, profile: 
     const ends = endRows.filter(e => e.airfieldId === item.airfield.id)
     const levels = levelRows.filter(l => l.profileId === item.profile.id)
     const limitSet = limitSetFromRows(limitRows, item.airfield.id)
-    const stored = analyseStored(item.profile as Profile, item.airfield, ends, levels)
-    const checks = evaluateLimits(stored.analysis, limitSet.limits, limitSet.limitsFor)
-    const previous = previousRows.filter(p => p.supersededById === item.profile.id)
+    // The analysis reads the stored columns only; whether it is superseded then belongs to the per-request head.
+    const { supersededThenById: _then, supersededNowById: _now, ...columns } = item.profile
+    const stored = analyseStored(columns as Profile, item.airfield, ends, levels)
+    const checks = evaluateLimits(stored.analysis, limitSet.limits, limitSet.limitsFor, stored.profile.reportedWindShear ?? null)
+    const previous = previousRows.filter(p => p.supersededById === item.profile.id || previousIds.get(p.id)?.has(item.profile.id))
       .sort((a, b) => b.validFrom.getTime() - a.validFrom.getTime() || b.id - a.id)[0]
     let change = null
     if (previous) {
       // The superseded profile held against today's limits and runway ends: the change is the wind's, not the limits'.
       const before = analyseStored(previous, item.airfield, ends, levelRows.filter(l => l.profileId === previous.id))
-      const beforeChecks = evaluateLimits(before.analysis, limitSet.limits, limitSet.limitsFor)
+      const beforeChecks = evaluateLimits(before.analysis, limitSet.limits, limitSet.limitsFor, previous.reportedWindShear ?? null)
       change = briefingChangeOf(previous.id, keyFiguresOf(before.analysis, beforeChecks), keyFiguresOf(stored.analysis, checks))
     }
     const full = assembleBriefing(stored, limitSet, change)
@@ -162,7 +183,7 @@ function thresholdRow(r: Row): ThresholdSet {
   return {
     id: r.id, scopeKey: r.scope_key, airfieldId: r.airfield_id, designator: r.designator,
     maxCrosswindKt: r.max_crosswind_kt, maxTailwindKt: r.max_tailwind_kt, maxLayerShearKtPer100ft: r.max_layer_shear_kt_per_100ft,
-    maxVectorDiff600mKt: r.max_vector_diff_600m_kt, maxAirspeedLossKt: r.max_airspeed_loss_kt,
+    maxVectorDiff600mKt: r.max_vector_diff_600m_kt, maxAirspeedLossKt: r.max_airspeed_loss_kt, maxFFactor: r.max_f_factor,
     nearLimitMarginPct: r.near_limit_margin_pct, updatedByUserId: r.updated_by_user_id, updatedAt: r.updated_at,
   }
 }
@@ -172,20 +193,23 @@ function airfieldOf(r: Row): Airfield {
     id: r.a_id, code: r.a_code, name: r.a_name, latitudeDeg: r.a_latitude_deg, longitudeDeg: r.a_longitude_deg,
     elevationM: r.a_elevation_m, elevationUnit: r.a_elevation_unit, magVarOverrideDeg: r.a_mag_var_override_deg,
     magVarOverrideReason: r.a_mag_var_override_reason, notes: r.a_notes, createdAt: r.a_created_at, updatedAt: r.a_updated_at,
+    reportingStation: r.a_reporting_station,
+    pathSettings: typeof r.a_path_settings === 'string' ? JSON.parse(r.a_path_settings) : (r.a_path_settings ?? null),
   }
 }
 
 const AIRFIELD_COLUMNS = `a.id AS a_id, a.code AS a_code, a.name AS a_name, a.latitude_deg AS a_latitude_deg,
   a.longitude_deg AS a_longitude_deg, a.elevation_m AS a_elevation_m, a.elevation_unit AS a_elevation_unit,
   a.mag_var_override_deg AS a_mag_var_override_deg, a.mag_var_override_reason AS a_mag_var_override_reason,
-  a.notes AS a_notes, a.created_at AS a_created_at, a.updated_at AS a_updated_at`
+  a.notes AS a_notes, a.created_at AS a_created_at, a.updated_at AS a_updated_at,
+  a.reporting_station AS a_reporting_station, a.path_settings AS a_path_settings`
 
 /** Minutes after filing past which the briefing warns that its profile is stale (VEERLINE_STALE_AFTER_MIN). */
 export const STALE_AFTER_MIN = Number(process.env.VEERLINE_STALE_AFTER_MIN) || DEFAULT_STALE_AFTER_MIN
 
 /** The profile's head for one read: its status at the chosen time (`at`, now by default) and its ages. */
 export function publicProfileOf(p: ProfileHead, now: Date, at: Date = now, chosen = false) {
-  const status = profileStatusAt(p, at)
+  const status = profileStatusAt(p, at, p.supersededThenById != null)
   return {
     id: p.id,
     source: p.source,
@@ -193,14 +217,19 @@ export function publicProfileOf(p: ProfileHead, now: Date, at: Date = now, chose
     validTo: p.validTo.toISOString(),
     filedAt: p.createdAt.toISOString(),
     heightReference: p.heightReference,
-    ...profileAges({ createdAt: p.createdAt }, now, at, STALE_AFTER_MIN),
+    // A coded report's observation time dates the data; otherwise the filing does.
+    ...profileAges({ createdAt: p.createdAt, observedAt: p.observedAt }, now, at, STALE_AFTER_MIN),
     /** At the chosen time; `statusNow` is where it stands now. */
     status,
     statusWords: statusWordsAt(status, p, at, chosen),
-    statusNow: profileStatusAt(p, now),
-    supersededById: p.supersededById,
+    statusNow: profileStatusAt(p, now, p.supersededNowById != null),
+    supersededById: (status === 'superseded' ? p.supersededThenById : p.supersededNowById) ?? p.supersededById,
     withdrawnReason: p.withdrawnReason,
     notes: p.notes,
+    qnhHpa: p.qnhHpa ?? null,
+    surfacePressureHpa: p.surfacePressureHpa ?? null,
+    rawReport: p.rawReport ?? null,
+    reportedWindShear: p.reportedWindShear ?? null,
   }
 }
 
@@ -238,7 +267,7 @@ export async function readBriefing(code: string, userId: number, opts: { at?: Da
      LEFT JOIN profiles p ON p.id = ${profileExpr}
      LEFT JOIN briefing_receipts r ON r.user_id = ? AND r.profile_id = p.id
      WHERE a.code = ?`,
-    [...profileArgs, userId, upper],
+    [at, at, now, now, ...profileArgs, userId, upper],
   ) as [Row[], unknown]
   const row = rows[0]
   if (!row) return { kind: 'no-airfield', code: upper }
@@ -275,7 +304,7 @@ export async function readBriefingSummaries() {
      LEFT JOIN ${VALID_BY_AIRFIELD_SQL} v ON v.airfield_id = a.id
      LEFT JOIN profiles p ON p.id = COALESCE(v.id, ${LATEST_BEGUN_SQL})
      ORDER BY a.code`,
-    [now, now, now],
+    [now, now, now, now, now, now, now],
   ) as [Row[], unknown]
   const items = rows.map((r) => {
     const airfield = airfieldOf(r)

@@ -28,6 +28,7 @@ export function levelInputsOf(rows: ProfileLevel[]): LevelInput[] {
     if (r.speedMps != null) level.speedMps = r.speedMps
     if (r.gustKt != null) level.gustKt = r.gustKt
     if (r.gustMps != null) level.gustMps = r.gustMps
+    if (r.temperatureC != null) level.temperatureC = r.temperatureC
     return level
   })
 }
@@ -59,8 +60,18 @@ export function analyseStored(profile: Profile, airfield: Airfield, runwayEnds: 
     elevationM: airfield.elevationM,
     runwayEnds: runwayEndInputsOf(runwayEnds, declination.declinationDeg),
     shearClassBoundsKtPer100ft,
+    ...pressureInputsOf(profile, airfield),
   })
   return { profile, airfield, runwayEnds, levels, declination, analysis }
+}
+
+/** QNH, station pressure and the airfield's path settings, as the engine takes them (only what is set). */
+export function pressureInputsOf(p: { qnhHpa?: number | null, surfacePressureHpa?: number | null }, airfield: Airfield) {
+  return {
+    ...(p.qnhHpa == null ? {} : { qnhHpa: p.qnhHpa }),
+    ...(p.surfacePressureHpa == null ? {} : { surfacePressureHpa: p.surfacePressureHpa }),
+    ...(airfield.pathSettings ? { paths: airfield.pathSettings } : {}),
+  }
 }
 
 /** Loads profiles with their airfield, runway ends and levels, and analyses each. */

@@ -10,17 +10,20 @@ import { publicProfile } from './filing'
 
 async function profileWithLevels(db: DB | Tx, id: number) {
   const p = schema.profiles
+  const s = schema.profileSupersessions
   const [row] = await db.select({ profile: p, code: schema.airfields.code }).from(p)
     .innerJoin(schema.airfields, eq(schema.airfields.id, p.airfieldId)).where(eq(p.id, id))
   if (!row) return null
-  const [levels, superseded] = await Promise.all([
+  const [levels, superseded, periods] = await Promise.all([
     db.select().from(schema.profileLevels).where(eq(schema.profileLevels.profileId, id)).orderBy(asc(schema.profileLevels.seq)),
-    db.select({ id: p.id }).from(p).where(eq(p.supersededById, id)),
+    db.select({ id: s.profileId }).from(s).where(eq(s.supersededById, id)),
+    db.select().from(s).where(eq(s.profileId, id)).orderBy(asc(s.fromAt)),
   ])
-  return publicProfile(row.profile, row.code, levels, superseded.map(s => s.id))
+  return publicProfile(row.profile, row.code, levels, [...new Set(superseded.map(x => x.id))],
+    periods.map(x => ({ from: x.fromAt.toISOString(), to: x.toAt.toISOString(), byId: x.supersededById })))
 }
 
-/** One profile as filed, with its history links (what it superseded, what superseded it). */
+/** One profile as filed, with its history links (what it superseded, what superseded it and for which time). */
 export async function readProfile(id: number) {
   const profile = await profileWithLevels(useDB(), id)
   if (!profile) throw notFound(`No profile ${id}`)

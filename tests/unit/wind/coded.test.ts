@@ -91,8 +91,8 @@ describe('wind shear groups', () => {
   })
 
   it('METAR WS R24 and WS ALL RWY flag the runways named (WMO-No. 306 FM 15 supplementary group)', () => {
-    expect(parseCodedReport('METAR XQAB 121150Z 24015KT 9999 WS R24 WS R07R').runwayShear).toEqual({ allRunways: false, runways: ['24', '07R'] })
-    expect(parseCodedReport('METAR XQAB 121150Z 24015KT 9999 WS ALL RWY').runwayShear).toEqual({ allRunways: true, runways: [] })
+    expect(parseCodedReport('METAR XQAB 121150Z 24015KT 9999 WS R24 WS R07R').runwayShear).toEqual({ allRunways: false, runways: ['24', '07R'], groups: ['WS R24', 'WS R07R'] })
+    expect(parseCodedReport('METAR XQAB 121150Z 24015KT 9999 WS ALL RWY').runwayShear).toEqual({ allRunways: true, runways: [], groups: ['WS ALL RWY'] })
     expect(parseCodedReport('METAR XQAB 121150Z 24015KT 9999').runwayShear).toBeNull()
     expect(issuesOf(() => parseCodedReport('METAR XQAB 121150Z 24015KT WS XYZ'))[0]!.message).toContain('"WS XYZ"')
   })

@@ -83,7 +83,7 @@ describe('interpolation properties', () => {
         expect(p.heightAglM).toBeLessThanOrEqual(Math.min(600, r.coverage.highestAglM))
       }
     }), { numRuns: 300 })
-  })
+  }, 60_000) // a hang guard for a loaded machine, not a speed check
 })
 
 describe('path change properties', () => {

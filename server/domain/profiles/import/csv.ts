@@ -8,11 +8,14 @@ export type ParsedLevels = { levels: ProfileLevelInput[], lines: number[], issue
 
 const COLUMN_KEYS: Record<string, keyof ProfileLevelInput> = {
   height_m: 'heightM', height_ft: 'heightFt', pressure_hpa: 'pressureHpa', direction_deg: 'directionDeg',
-  speed_kt: 'speedKt', speed_mps: 'speedMps', gust_kt: 'gustKt', gust_mps: 'gustMps',
+  speed_kt: 'speedKt', speed_mps: 'speedMps', gust_kt: 'gustKt', gust_mps: 'gustMps', temperature_c: 'temperatureC',
 }
 export const CSV_COLUMNS = Object.keys(COLUMN_KEYS)
+/** The file's own column for each level field (`directionDeg` → `direction_deg`). */
+export const CSV_COLUMN_OF: Record<string, string> = Object.fromEntries(Object.entries(COLUMN_KEYS).map(([column, key]) => [key, column]))
 const GROUPS = [
-  { name: 'height', columns: ['height_m', 'height_ft', 'pressure_hpa'], required: true },
+  // A height column (height_m or height_ft), a pressure_hpa column, or both (the height wins where both are filled).
+  { name: 'height', columns: ['height_m', 'height_ft'], required: false },
   { name: 'direction', columns: ['direction_deg'], required: true },
   { name: 'speed', columns: ['speed_kt', 'speed_mps'], required: true },
   { name: 'gust', columns: ['gust_kt', 'gust_mps'], required: false },
@@ -64,7 +67,10 @@ export function parseProfileCsv(text: string): ParsedLevels {
       for (const g of GROUPS) {
         const present = g.columns.filter(c => header!.includes(c))
         if (g.required && present.length !== 1) issues.push({ line: lineNo, field: 'header', message: present.length ? `give one ${g.name} column, not ${present.join(' and ')}` : `a ${g.name} column is needed (${g.columns.join(' or ')})` })
-        if (!g.required && present.length > 1) issues.push({ line: lineNo, field: 'header', message: `give at most one gust column, not ${present.join(' and ')}` })
+        if (!g.required && present.length > 1) issues.push({ line: lineNo, field: 'header', message: `give at most one ${g.name} column, not ${present.join(' and ')}` })
+      }
+      if (!header.some(c => c === 'height_m' || c === 'height_ft' || c === 'pressure_hpa')) {
+        issues.push({ line: lineNo, field: 'header', message: 'a height column is needed (height_m, height_ft or pressure_hpa)' })
       }
       const dup = header.find((c, k) => header!.indexOf(c) !== k)
       if (dup) issues.push({ line: lineNo, field: 'header', message: `column "${dup}" appears twice` })
@@ -80,7 +86,9 @@ export function parseProfileCsv(text: string): ParsedLevels {
     header.forEach((column, k) => {
       const v = values[k]!
       if (v === '') {
-        if (column.startsWith('gust_')) return
+        // Optional cells: a gust, a temperature, and one of a height and a pressure when both columns exist.
+        if (column.startsWith('gust_') || column === 'temperature_c') return
+        if ((column === 'pressure_hpa' && header!.some(c => c === 'height_m' || c === 'height_ft')) || (column !== 'pressure_hpa' && column.startsWith('height_') && header!.includes('pressure_hpa'))) return
         issues.push({ line: lineNo, field: column, message: `${column} is empty` })
         return
       }
