@@ -4,7 +4,7 @@ import { effectiveAroundChanges } from '../../../server/domain/alerts/limit-view
 
 // The history's "effective before -> after": replaying the changes in order gives what was in force at each change's
 // own scope (runway end over airfield over organisation over the built-in defaults).
-const none = { maxCrosswindKt: null, maxTailwindKt: null, maxLayerShearKtPer100ft: null, maxVectorDiff600mKt: null, maxAirspeedLossKt: null, nearLimitMarginPct: null }
+const none = { maxCrosswindKt: null, maxTailwindKt: null, maxLayerShearKtPer100ft: null, maxVectorDiff600mKt: null, maxAirspeedLossKt: null, nearLimitMarginPct: null, maxFFactor: null }
 
 describe('effective limits around each change', () => {
   it('an airfield override of an inherited figure reads as the inherited value to the new one, not "inherit -> 12"', () => {
