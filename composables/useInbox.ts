@@ -47,8 +47,9 @@ export async function useInbox() {
     ...(filters.value.unacknowledged ? { unacknowledged: '1' } : {}),
     page: filters.value.page, pageSize: INBOX_PAGE_SIZE,
   }))
-  const { data, refresh, error } = await useApi('/api/alerts/inbox', { query })
+  // Every composable before the await: after it, a plain async function has lost the Nuxt context.
   const count = useNuxtData('alerts-count')
+  const { data, refresh, error } = await useApi('/api/alerts/inbox', { query })
   const failure = ref('')
   const notice = ref('')
   const groups = computed(() => groupInbox((data.value?.items ?? []) as unknown as InboxItem[]))
