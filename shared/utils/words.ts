@@ -1,12 +1,10 @@
-// Every state, kind, source and role a page names, in plain words, through one map. Pages call `words(category, value)`;
+// Every state, kind and role a page names (profile sources: PROFILE_SOURCE_LABELS beside their schema), in plain words, through one map. Pages call `words(category, value)`;
 // a value the map does not know is shown with its dashes as spaces rather than as an internal slug.
 import { KIND_WORDS } from '../limits'
-import { PROFILE_SOURCE_LABELS } from './profile-schema'
 import { ROLE_LABELS } from './roles'
 
 const WORDS = {
   role: ROLE_LABELS as Record<string, string>,
-  source: PROFILE_SOURCE_LABELS as Record<string, string>,
   alertKind: KIND_WORDS as Record<string, string>,
   alertState: { active: 'Active', cleared: 'Cleared', superseded: 'Replaced by a newer profile', expired: 'Expired' } as Record<string, string>,
   inboxEvent: { raised: 'Raised', cleared: 'Cleared' } as Record<string, string>,

@@ -87,4 +87,29 @@ describe('limits and alerts in the browser', () => {
     await screenshot(admin, 'mailbox')
     await adminCtx.close()
   }, 120_000) // a hang guard for a loaded machine, not a speed check
+
+  it('reading a briefing offers to acknowledge the reader\'s alerts of that airfield', async () => {
+    // Runway 18/36, wind 270° at 30 kt: 30 kt crosswind (common practice: a wind at right angles is all crosswind),
+    // over the default 20 kt limit.
+    const code = await createTestAirfield({ 18: 180, 36: 360 }, 'Briefing acknowledge field')
+    const filed = await (await signedIn('dispatcher')).post(`/api/airfields/${code}/profiles`, windProfile(270, 30))
+    expect(filed.status).toBe(201)
+    const pilotApi = await signedIn('pilot')
+    // Following puts the airfield's active alerts into the inbox.
+    expect((await pilotApi.put(`/api/subscriptions/${code}`, { email: false, push: false })).status).toBe(200)
+    const open = async () => (await pilotApi.get(`/api/alerts/inbox?airfield=${code}&unacknowledged=1`)).body.total as number
+    expect(await open()).toBeGreaterThan(0)
+
+    const { context } = await newContext(browser)
+    const pilot = await context.newPage()
+    await signInPage(pilot, 'pilot')
+    await pilot.goto(`/briefings/${code}`)
+    await pilot.waitForLoadState('networkidle')
+    const offer = pilot.locator('[data-test="briefing-inbox-offer"]')
+    expect(await offer.textContent()).toMatch(new RegExp(`You have \\d+ unacknowledged alerts? for ${code}`))
+    await offer.locator('[data-test="briefing-acknowledge"]').click()
+    await expect.poll(() => offer.textContent()).toMatch(new RegExp(`\\d+ alerts? of ${code} acknowledged`))
+    expect(await open()).toBe(0)
+    await context.close()
+  }, 120_000) // a hang guard for a loaded machine, not a speed check
 })
