@@ -8,7 +8,7 @@ import { ROLES } from '../../../shared/utils/roles'
 describe('the words map', () => {
   const cases: [Parameters<typeof words>[0], readonly string[]][] = [
     ['alertState', alertStates], ['deliveryKind', outboxKinds], ['deliveryState', outboxStates],
-    ['profileStatus', profileStatuses], ['role', ROLES]
+    ['profileStatus', profileStatuses], ['role', ROLES],
   ]
   for (const [category, values] of cases) {
     it(`${category}: every stored value has words`, () => {
