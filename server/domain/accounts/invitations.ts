@@ -1,5 +1,5 @@
 import type { User } from '../../db/schema'
-import { eq, schema, useDB } from '../../utils/db'
+import { eq, schema, transaction, useDB } from '../../utils/db'
 import { recordAudit } from '../../utils/audit'
 import { conflict, notFound } from '../../utils/errors'
 import { findLiveToken, issueToken } from './tokens'
@@ -12,7 +12,7 @@ export type InvitationInput = { email: string, name: string, role: User['role'] 
  */
 export async function inviteUser(admin: User, input: InvitationInput, appUrl: string) {
   const { email, name, role } = input
-  const result = await useDB().transaction(async (tx) => {
+  const result = await transaction(async (tx) => {
     const [existing] = await tx.select().from(schema.users).where(eq(schema.users.email, email)).for('update')
     if (existing?.passwordHash) throw conflict(`${email} already has an account`, [{ field: 'email', message: 'already has an account' }])
     let id = existing?.id
