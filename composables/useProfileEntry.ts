@@ -32,6 +32,7 @@ export function rekeyLevel(level: LevelDraft, from: { height: HeightKey, speed: 
   out[to.speed] = level[from.speed]
   const gust = level[gustKeyOf(from.speed)]
   if (gust !== undefined) out[gustKeyOf(to.speed)] = gust
+  if (level.temperatureC !== undefined) out.temperatureC = level.temperatureC
   return out
 }
 
@@ -97,6 +98,13 @@ export function useProfileEntry(code: string, options: { now?: number, previewDe
   const [notes] = form.defineField('notes')
   const [validFrom] = form.defineField('validFrom')
   const [validTo] = form.defineField('validTo')
+  const [qnhHpa] = form.defineField('qnhHpa')
+  const [surfacePressureHpa] = form.defineField('surfacePressureHpa')
+  /** QNH or station pressure as typed: blank leaves it out; anything else goes to the schema, whose message names it. */
+  function setPressure(field: 'qnhHpa' | 'surfacePressureHpa', typed: string) {
+    const raw = typed.trim().replace(',', '.')
+    form.setFieldValue(field, raw === '' ? undefined : (Number.isFinite(Number(raw)) ? Number(raw) : raw as unknown as number))
+  }
   function setTime(field: 'validFrom' | 'validTo', typed: string) {
     // Anything that is not a UTC time is passed on as typed, so the shared schema's message says what is wrong.
     form.setFieldValue(field, parseUtcText(typed) ?? typed.trim())
@@ -157,6 +165,8 @@ export function useProfileEntry(code: string, options: { now?: number, previewDe
   const preview = useProfilePreview(code, () => ({
     heightReference: form.values.heightReference,
     levels: form.values.levels ? sortedLevels(form.values.levels as LevelDraft[], units.height) : undefined,
+    qnhHpa: form.values.qnhHpa,
+    surfacePressureHpa: form.values.surfacePressureHpa,
   }), { debounceMs: options.previewDebounceMs })
 
   /** Puts the rows in height order, as they will be filed: done when filing, so the server's row numbers match the table. */
@@ -185,7 +195,7 @@ export function useProfileEntry(code: string, options: { now?: number, previewDe
       confirmAsked.value = confirm
       if (confirm) failure.value = 'Not filed yet: the reports need confirming. Read the warnings above and tick the box to file them anyway'
       // Issues land beside their cells (`levels[1].directionDeg`); the rest are listed under the message.
-      const known = new Set([...fields.value.flatMap((row, i) => Object.keys(row.value).map(k => `levels[${i}].${k}`)), 'validFrom', 'validTo', 'source', 'heightReference', 'notes', 'levels', 'codedReport'])
+      const known = new Set([...fields.value.flatMap((row, i) => Object.keys(row.value).map(k => `levels[${i}].${k}`)), 'validFrom', 'validTo', 'source', 'heightReference', 'notes', 'levels', 'codedReport', 'qnhHpa', 'surfacePressureHpa'])
       const isFormPath = (path: string): path is FormPath => known.has(path)
       failureIssues.value = f.issues.filter((issue) => {
         // The confirmation warnings are the ones listed in the box with the tick.
@@ -240,7 +250,7 @@ export function useProfileEntry(code: string, options: { now?: number, previewDe
 
   return {
     errors: form.errors, values: form.values, isSubmitting: form.isSubmitting,
-    fields, remove, source, heightReference, notes, validFrom, validTo, setTime,
+    fields, remove, source, heightReference, notes, validFrom, validTo, setTime, qnhHpa, surfacePressureHpa, setPressure,
     units, gustKey, unitLabels, entry, sortRows, addLevel, fromCoded, coded, confirmCoded, confirmAsked,
     preview, submit, failure, failureIssues, header, supersedes, filePeriods, filingPeriods,
   }

@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { M_PER_FT } from '../units'
+import { PATH_RANGES } from '../wind/validate'
 
 // Airfields and runways: shared by the API and the forms.
 
@@ -27,6 +28,18 @@ const airfieldShape = {
   reportingStation: z.string().trim().transform(s => s.toUpperCase())
     .refine(s => s === '' || /^[A-Z][A-Z0-9]{3}$/.test(s), 'Reporting station must be a four-character location indicator, e.g. XVAL')
     .transform(s => s || null).nullable().optional(),
+  // Approach and departure geometry for the corridor check and the F-factor; a setting left out keeps the default
+  // (3 NM corridor, 3.0° at 140 kt, 6.0° at 160 kt); null: all defaults.
+  pathSettings: z.object(pathSettingShape()).strict().nullable().optional(),
+}
+
+function pathSettingShape() {
+  const labels = { corridorNm: 'Corridor length', arrivalGlidePathDeg: 'Glide path', arrivalTrueAirspeedKt: 'Arrival true airspeed', departureClimbDeg: 'Climb angle', departureTrueAirspeedKt: 'Departure true airspeed' } as const
+  return Object.fromEntries(Object.entries(PATH_RANGES).map(([k, r]) => {
+    const label = labels[k as keyof typeof labels]
+    const msg = `${label} must be from ${r.min} to ${r.max}${r.unit === '°' ? '' : ' '}${r.unit}`
+    return [k, z.number({ invalid_type_error: `${label} must be a number` }).finite(msg).min(r.min, msg).max(r.max, msg).optional()]
+  })) as Record<keyof typeof PATH_RANGES, z.ZodOptional<z.ZodNumber>>
 }
 
 type AirfieldFields = { elevation?: number, elevationUnit?: 'ft' | 'm', magVarOverrideDeg?: number | null, magVarOverrideReason?: string | null }

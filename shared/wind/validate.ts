@@ -51,7 +51,8 @@ export const DEFAULT_PATH_SETTINGS: Readonly<PathSettings> = Object.freeze({
   departureClimbDeg: 6,
   departureTrueAirspeedKt: 160,
 })
-const PATH_RANGES: Record<keyof PathSettings, { min: number, max: number, unit: string }> = {
+/** The accepted range of each path setting (engine input and the airfield's stored settings). */
+export const PATH_RANGES: Record<keyof PathSettings, { min: number, max: number, unit: string }> = {
   corridorNm: { min: 0.5, max: 10, unit: 'NM' },
   arrivalGlidePathDeg: { min: 1, max: 8, unit: '°' },
   arrivalTrueAirspeedKt: { min: 40, max: 250, unit: 'kt' },

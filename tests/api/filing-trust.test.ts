@@ -289,3 +289,64 @@ describe('before filing: what the new profile will supersede', () => {
     expect((await (await signedIn('pilot')).get(`/api/airfields/${code}/profiles/supersedes?validFrom=${iso(60)}&validTo=${iso(240)}`)).status).toBe(403)
   })
 })
+
+describe('the 15 kt check on the approach and climb corridor', () => {
+  // A headwind on runway 36 growing evenly from calm at the ground to 20 kt at 600 m.
+  const steady = [{ heightM: 0, directionDeg: 360, speedKt: 0 }, { heightM: 600, directionDeg: 360, speedKt: 20 }]
+  const file = async (api: ApiClient, code: string) => {
+    const now = Date.now()
+    const res = await api.post(`/api/airfields/${code}/profiles`, {
+      validFrom: new Date(now - minute).toISOString(), validTo: new Date(now + 3600_000).toISOString(), source: 'estimate', heightReference: 'AGL', levels: steady,
+    })
+    expect(res.status).toBe(201)
+    const b = (await api.get(`/api/airfields/${code}/briefing`)).body.briefing
+    return b.runwayEnds.find((e: { designator: string }) => e.designator === '36')
+  }
+
+  it('a wind strengthening steadily with height: 20 kt over 0-600 m stays information; 9.7 kt within 3 NM is within the limit', async () => {
+    const api = await signedIn('dispatcher')
+    const { code } = await makeAirfield(api)
+    const end = await file(api, code)
+    // 0-600 m: the whole 20 kt, shown, not checked.
+    expect(end.arrival.maxAirspeedLossKt).toBeCloseTo(20, 6)
+    // Within 3 NM on a 3° path the path reaches 3 x 1852 x tan 3° = 291.2 m: 20 x 291.2 / 600 = 9.71 kt.
+    const check = end.checks.find((c: { kind: string }) => c.kind === 'airspeed-loss-arrival')
+    // The briefing answers in the trade's precision (0.1 kt).
+    expect(check.value).toBeCloseTo(20 * 5556 * Math.tan(3 * Math.PI / 180) / 600, 1)
+    expect(check).toMatchObject({ limit: 15, state: 'within' })
+    expect(check.message).toContain('within 3 NM of the threshold')
+  })
+
+  it('the corridor and path geometry are airfield settings: 6 NM reaches 582.4 m, and the same wind then exceeds 15 kt', async () => {
+    const api = await signedIn('dispatcher')
+    const { code } = await makeAirfield(api, { pathSettings: { corridorNm: 6 } })
+    expect((await api.get(`/api/airfields/${code}`)).body.airfield.pathSettings).toEqual({ corridorNm: 6 })
+    const end = await file(api, code)
+    const check = end.checks.find((c: { kind: string }) => c.kind === 'airspeed-loss-arrival')
+    expect(check.value).toBeCloseTo(20 * 11112 * Math.tan(3 * Math.PI / 180) / 600, 1)
+    expect(check.state).toBe('exceeded')
+    const bad = await api.patch(`/api/airfields/${code}`, { pathSettings: { arrivalGlidePathDeg: 12 } })
+    expect(bad.status).toBe(422)
+    expect(bad.body.data.issues[0]).toMatchObject({ field: 'pathSettings.arrivalGlidePathDeg', message: 'Glide path must be from 1 to 8°' })
+  })
+})
+
+describe('the F-factor limit is set like the others', () => {
+  it('the safety office sets maxFFactor per airfield; the briefing checks against it; out of range is refused by name', async () => {
+    const api = await signedIn('dispatcher')
+    const safety = await signedIn('safety')
+    const { code } = await makeAirfield(api)
+    const set = await safety.put(`/api/limits/airfields/${code}`, { values: { maxFFactor: 0.15 }, reason: 'Test field: F-factor limit for this type' })
+    expect(set.status).toBe(200)
+    const now = Date.now()
+    await api.post(`/api/airfields/${code}/profiles`, {
+      validFrom: new Date(now - minute).toISOString(), validTo: new Date(now + 3600_000).toISOString(), source: 'estimate', heightReference: 'AGL',
+      levels: [{ heightM: 0, directionDeg: 180, speedKt: 0 }, { heightM: 100, directionDeg: 180, speedKt: 80 }, { heightM: 600, directionDeg: 180, speedKt: 80 }],
+    })
+    const end18 = (await api.get(`/api/airfields/${code}/briefing`)).body.briefing.runwayEnds.find((e: { designator: string }) => e.designator === '18')
+    expect(end18.checks.find((c: { kind: string }) => c.kind === 'f-factor-arrival').limit).toBe(0.15)
+    const bad = await safety.put(`/api/limits/airfields/${code}`, { values: { maxFFactor: 0.9 }, reason: 'Test field: too high' })
+    expect(bad.status).toBe(422)
+    expect(bad.body.data.issues.map((i: { field: string }) => i.field)).toContain('values.maxFFactor')
+  })
+})

@@ -76,7 +76,7 @@ describe('a TAF with change groups', () => {
 })
 
 describe('the filing form at phone width', () => {
-  it('fits 390 px without sideways scrolling', async () => {
+  it('fits 390 px without sideways scrolling, the QNH field included', async () => {
     const { code } = await makeAirfield(await signedIn('dispatcher'))
     const { context } = await newContext(browser, { viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true })
     const page = await context.newPage()
@@ -84,6 +84,13 @@ describe('the filing form at phone width', () => {
     await page.goto(`/airfields/${code}/file`)
     await page.waitForLoadState('networkidle')
     await expect.poll(() => page.locator('[data-test="supersede-preview"]').count()).toBe(1)
+    // The day's QNH can be given; anything but a number is refused in the field's own words.
+    await page.fill('#pf-qnh', 'high')
+    await page.locator('#pf-qnh').blur()
+    await expect.poll(() => page.locator('#pf-qnh-error').textContent()).toContain('QNH must be a number')
+    await page.fill('#pf-qnh', '1030')
+    await page.locator('#pf-qnh').blur()
+    await expect.poll(() => page.locator('#pf-qnh-error').count()).toBe(0)
     const scrollWidth = await page.evaluate(() => document.documentElement.scrollWidth)
     expect(scrollWidth).toBeLessThanOrEqual(390)
     await screenshot(page, 'profile-entry-phone')

@@ -100,6 +100,8 @@ export function airfieldSummary(a: Airfield) {
     notes: a.notes,
     // The station its coded reports must name (its own code unless set).
     reportingStation: a.reportingStation ?? a.code,
+    // Approach and departure geometry as set (null: the engine's defaults).
+    pathSettings: a.pathSettings ?? null,
     updatedAt: a.updatedAt.toISOString(),
   }
 }

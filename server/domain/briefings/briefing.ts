@@ -6,7 +6,7 @@
 import type { Airfield, Profile, RunwayEnd } from '../../db/schema'
 import { runwayComponents, uvToWind, GRID_TOP_M, type GridPoint, type ProfileAnalysis, type RunwayEndAnalysis } from '../../../shared/wind'
 import { evaluateLimits, type LimitCheck, type Limits } from '../../../shared/limits'
-import { levelInputsOf, runwayEndInputsOf, type StoredProfileAnalysis } from '../profiles/analysis'
+import { levelInputsOf, pressureInputsOf, runwayEndInputsOf, type StoredProfileAnalysis } from '../profiles/analysis'
 import { eq, schema, useDB } from '../../utils/db'
 import { M_PER_FT } from '../../../shared/units'
 import { loadAirfield } from '../airfields/lookup'
@@ -158,6 +158,8 @@ export function assembleBriefing(stored: StoredProfileAnalysis, limitSet: Briefi
       heightReference: profile.heightReference,
       elevationM: airfield.elevationM,
       runwayEnds: runwayEndInputsOf(runwayEnds, declination.declinationDeg),
+      // QNH, station pressure and the airfield's path settings: without them a re-run would place levels otherwise.
+      ...pressureInputsOf(profile, airfield),
     },
     levels: analysis.levels,
     grid: analysis.grid,
