@@ -1,6 +1,6 @@
 // The outbox worker: claims due rows with SELECT … FOR UPDATE SKIP LOCKED (so two app instances never take the same
 // row), sends each while holding its lock, and records the outcome in the same transaction.
-import { eq, inArray, schema, sql } from '../../utils/db'
+import { eq, inArray, schema, sql, transaction } from '../../utils/db'
 import type { DB, Tx } from '../../utils/db'
 import type { OutboxRow } from '../../db/schema'
 import { nextDelayMs, retryPolicy, type RetryPolicy } from './backoff'
@@ -34,7 +34,8 @@ export function defaultSenders(db: DB): Senders {
 
 /** One claim-and-send round; returns how many rows it handled (0 = nothing due). */
 export async function runOutboxOnce(db: DB, senders: Senders, instanceId: string, policy: RetryPolicy = retryPolicy(), batch = 5) {
-  return db.transaction(async (tx) => {
+  // It sends inside the transaction, so a conflict is not repeated here (attempts: 1): the rows stay due.
+  return transaction(async (tx) => {
     const [claimed] = await tx.execute(sql`SELECT id FROM outbox WHERE state = 'queued' AND next_attempt_at <= CURRENT_TIMESTAMP(3)
       ORDER BY id LIMIT ${batch} FOR UPDATE SKIP LOCKED`) as unknown as [{ id: number }[]]
     if (!claimed.length) return 0
@@ -61,5 +62,5 @@ export async function runOutboxOnce(db: DB, senders: Senders, instanceId: string
       }
     }
     return rows.length
-  })
+  }, { db, attempts: 1 })
 }

@@ -32,18 +32,25 @@ export async function readMailbox(): Promise<MailboxMessage[]> {
 }
 
 /**
- * The messages the SMTP stand-in received, newest first, only where the stand-ins run (never in production).
+ * The messages the SMTP stand-in received, newest first, one page at a time, only where the stand-ins run (never in
+ * production). `to` picks one exact recipient, `q` any recipient whose address contains it (both ignore case).
  * Invitation and reset links are masked unless the admin asks to reveal them, which is recorded in the audit.
  */
-export async function mailboxView(admin: User, query: { to?: string, limit: number, reveal: boolean }) {
+export async function mailboxView(admin: User, query: { to?: string, q?: string, page: number, pageSize: number, reveal: boolean }) {
   if (!standinsEnabled()) throw notFound('There is no mailbox stand-in in production')
-  const to = query.to?.toLowerCase()
-  const all = (await readMailbox()).filter(m => !to || m.envelopeTo.some(t => t.toLowerCase() === to))
-  const messages = all.reverse().slice(0, query.limit)
-  if (query.reveal) await recordAudit(useDB(), { user: admin }, 'mailbox.reveal-links', 'mailbox', 'stand-in', { to: to ?? null, count: messages.length })
+  const to = query.to?.toLowerCase() || undefined
+  const q = query.q?.toLowerCase() || undefined
+  const recipients = (m: MailboxMessage) => [...m.envelopeTo, m.to].map(t => t.toLowerCase())
+  const all = (await readMailbox()).filter(m => (!to || m.envelopeTo.some(t => t.toLowerCase() === to)) && (!q || recipients(m).some(t => t.includes(q))))
+  const start = (query.page - 1) * query.pageSize
+  const messages = all.reverse().slice(start, start + query.pageSize)
+  if (query.reveal) await recordAudit(useDB(), { user: admin }, 'mailbox.reveal-links', 'mailbox', 'stand-in', { to: to ?? null, q: q ?? null, count: messages.length })
   return {
     messages: query.reveal ? messages : messages.map(m => ({ ...m, text: maskTokenLinks(m.text), html: m.html === null ? null : maskTokenLinks(m.html) })),
     total: all.length,
+    page: query.page,
+    pageSize: query.pageSize,
+    pages: Math.max(1, Math.ceil(all.length / query.pageSize)),
     revealed: query.reveal,
   }
 }
