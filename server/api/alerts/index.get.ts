@@ -2,7 +2,7 @@ import { airfieldCodeField } from '#shared/utils/airfield-schema'
 import { z } from 'zod'
 import { decimalIntSchema } from '#shared/utils/input-schemas'
 import { loadAirfield } from '../../domain/airfields/lookup'
-import { listAlerts } from '../../domain/alerts/alert-log'
+import { alertQueue, listAlerts } from '../../domain/alerts/alert-log'
 
 const querySchema = z.object({
   airfield: airfieldCodeField('Airfield').optional(),
@@ -15,5 +15,5 @@ export default defineApiHandler(async (event) => {
   await requireCapability(event, 'read-alert-log')
   const query = readQuery(event, querySchema)
   const airfield = query.airfield ? await loadAirfield(query.airfield) : null
-  return { alerts: await listAlerts({ airfieldId: airfield?.id, state: query.state, limit: query.limit }) }
+  return { queue: await alertQueue(), alerts: await listAlerts({ airfieldId: airfield?.id, state: query.state, limit: query.limit }) }
 })
