@@ -34,8 +34,9 @@ export const DEFAULT_LIMITS: Limits = {
   maxLayerShearKtPer100ft: 8,
   maxVectorDiff600mKt: 30,
   maxAirspeedLossKt: 15,
-  // 0.1: the 1 km averaged F-factor at which airborne wind shear systems alert (Bowles; Proctor, Hinton and
-  // Bowles 2000, "A Windshear Hazard Index": advisories around 0.1-0.15; the exact figure from memory).
+  // 0.1: the 1 km averaged F-factor from which airborne wind shear systems advise (Proctor, Hinton and Bowles 2000,
+  // "A Windshear Hazard Index", on its hazard threshold; "an F-Factor ranging between 0.1-0.15 or more ... used to
+  // provide windshear advisories", Aerocrew News 2024, seen; the 1 km averaging from memory).
   maxFFactor: 0.1,
   nearLimitMarginPct: 10,
 }

@@ -1,6 +1,7 @@
 import { z } from 'zod'
 import { M_PER_FT } from '../units'
 import { PATH_RANGES } from '../wind/validate'
+import { COORDINATE_EXAMPLES, coordinateOrTyped, type Axis } from './coordinates'
 
 // Airfields and runways: shared by the API and the forms.
 
@@ -14,11 +15,19 @@ export const airfieldCodeParamSchema = z.object({ code: airfieldCodeSchema })
 const deg = (label: string, limit: number) => z.number({ required_error: `${label} is required`, invalid_type_error: `${label} must be a number` })
   .finite().min(-limit, `${label} must be from -${limit} to ${limit}°`).max(limit, `${label} must be from -${limit} to ${limit}°`)
 
+/** A latitude or longitude: a number, or text in decimal degrees or degrees-minutes(-seconds) with N/S/E/W. */
+const coordinate = (label: string, axis: Axis) => {
+  const limit = axis === 'lat' ? 90 : 180
+  const range = `${label} must be from -${limit} to ${limit}°`
+  return z.preprocess(v => coordinateOrTyped(v, axis), z.number({ required_error: `${label} is required`, invalid_type_error: `${label}: give ${COORDINATE_EXAMPLES[axis]}` })
+    .finite(range).min(-limit, range).max(limit, range))
+}
+
 const airfieldShape = {
   code: airfieldCodeSchema,
   name: z.string({ required_error: 'Name is required' }).trim().min(1, 'Name is required').max(120, 'Name: at most 120 characters'),
-  latitudeDeg: deg('Latitude', 90),
-  longitudeDeg: deg('Longitude', 180),
+  latitudeDeg: coordinate('Latitude', 'lat'),
+  longitudeDeg: coordinate('Longitude', 'lon'),
   elevation: z.number({ required_error: 'Elevation is required', invalid_type_error: 'Elevation must be a number' }).finite(),
   elevationUnit: z.enum(['ft', 'm'], { errorMap: () => ({ message: 'Elevation unit must be ft or m' }) }),
   magVarOverrideDeg: deg('Magnetic variation', 180).nullable().optional(),
@@ -83,8 +92,8 @@ export function designatorPairProblem(a: string, b: string): string | null {
 const endSchema = z.object({
   designator: z.string({ required_error: 'Designator is required' }).trim().toUpperCase()
     .regex(DESIGNATOR_RE, 'Designator must be 01 to 36 with an optional L, C or R'),
-  thresholdLatDeg: deg('Threshold latitude', 90).nullable().optional(),
-  thresholdLonDeg: deg('Threshold longitude', 180).nullable().optional(),
+  thresholdLatDeg: coordinate('Threshold latitude', 'lat').nullable().optional(),
+  thresholdLonDeg: coordinate('Threshold longitude', 'lon').nullable().optional(),
   thresholdElevationM: z.number().finite().min(-500, 'Threshold elevation must be from -500 to 9000 m').max(9000, 'Threshold elevation must be from -500 to 9000 m').nullable().optional(),
   // Only where the threshold coordinates are unknown.
   trueHeadingDeg: z.number({ invalid_type_error: 'True heading must be a number' }).finite().gt(0, 'True heading must be above 0 and at most 360°').max(360, 'True heading must be above 0 and at most 360°').nullable().optional(),

@@ -28,3 +28,9 @@ export function runwayTrueBearingDeg(lat1Deg: number, lon1Deg: number, lat2Deg: 
   }
   return normaliseHeadingDeg(r.azi1)
 }
+
+/** Distance in metres between two thresholds on the WGS84 ellipsoid (Karney's geodesic inverse, s12). */
+export function thresholdDistanceM(lat1Deg: number, lon1Deg: number, lat2Deg: number, lon2Deg: number): number {
+  const r = WGS84.Inverse(lat1Deg, lon1Deg, lat2Deg, lon2Deg)
+  return typeof r.s12 === 'number' ? r.s12 : Number.NaN
+}

@@ -21,7 +21,7 @@ export {
 } from './atmosphere'
 export { fFactorOfPath, samplePath, G_MPS2, FFACTOR_HAZARD, FFACTOR_AVERAGE_M, FFACTOR_STEP_M } from './ffactor'
 export { magneticDeclinationDeg, magneticFromTrue, trueFromMagnetic, WMM2025_START, WMM2025_END } from './magnetic'
-export { runwayTrueBearingDeg } from './geodesy'
+export { runwayTrueBearingDeg, thresholdDistanceM } from './geodesy'
 export { stormRelativeHelicity, bunkersStormMotion, streamwiseVorticityShare, BUNKERS_DEVIATION_MPS } from './convective'
 export { parseCodedReport } from './coded'
 export {

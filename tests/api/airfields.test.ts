@@ -103,6 +103,8 @@ describe('airfields and runways', () => {
     expect(res.status).toBe(201)
     const [e10, e28] = res.body.runway.ends
     expect(e10.headingSource).toBe('coordinates')
+    // No length given: it is worked out from the two thresholds, s12 of the same GeodTest line.
+    expect(res.body.runway.lengthM).toBeCloseTo(706.2676803, 4)
     expect(e10.trueHeadingDeg).toBeCloseTo(98.927919777265, 6)
     // the reverse direction at the far threshold is azi2 + 180
     expect(e28.trueHeadingDeg).toBeCloseTo(98.9300436008154 + 180, 6)

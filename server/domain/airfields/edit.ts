@@ -1,6 +1,7 @@
 import type { z } from 'zod'
 import type { airfieldCreateSchema, airfieldUpdateSchema, RunwayInput } from '../../../shared/utils/airfield-schema'
 import { M_PER_FT } from '../../../shared/units'
+import { thresholdDistanceM } from '../../../shared/wind'
 import type { Airfield, User } from '../../db/schema'
 import { and, asc, eq, schema, useDB } from '../../utils/db'
 import { recordAudit } from '../../utils/audit'
@@ -8,6 +9,15 @@ import { conflict, invalid, notFound } from '../../utils/errors'
 import { isDuplicateKeyError } from '../../utils/idempotency'
 import { airfieldDetail, runwayEndValues } from './index'
 import { findAirfield } from './lookup'
+
+/** The runway's length as given, else worked out from its two thresholds when both have coordinates, else none. */
+function lengthOf(input: RunwayInput): number | null {
+  if (input.lengthM != null) return input.lengthM
+  const [a, b] = input.ends
+  if (a?.thresholdLatDeg == null || a.thresholdLonDeg == null || b?.thresholdLatDeg == null || b.thresholdLonDeg == null) return null
+  const m = thresholdDistanceM(a.thresholdLatDeg, a.thresholdLonDeg, b.thresholdLatDeg, b.thresholdLonDeg)
+  return Number.isFinite(m) && m > 0 ? m : null
+}
 
 const elevationMOf = (elevation: number, unit: 'm' | 'ft' | undefined) => unit === 'ft' ? elevation * M_PER_FT : elevation
 
@@ -67,7 +77,7 @@ const endTaken = (airfield: Airfield, ends: { designator: string }[]) => conflic
 export async function addRunway(user: User, airfield: Airfield, input: RunwayInput) {
   const ends = runwayEndValues(airfield, input)
   const runwayId = await useDB().transaction(async (tx) => {
-    const [row] = await tx.insert(schema.runways).values({ airfieldId: airfield.id, lengthM: input.lengthM ?? null }).$returningId()
+    const [row] = await tx.insert(schema.runways).values({ airfieldId: airfield.id, lengthM: lengthOf(input) }).$returningId()
     await tx.insert(schema.runwayEnds).values(ends.map(e => ({ ...e, runwayId: row!.id })))
     await recordAudit(tx, { user }, 'runway.create', 'runway', row!.id, {
       airfieldCode: airfield.code, ends: ends.map(e => ({ designator: e.designator, trueHeadingDeg: e.trueHeadingDeg, headingSource: e.headingSource })),
@@ -90,7 +100,7 @@ export async function replaceRunway(user: User, airfield: Airfield, runwayId: nu
       .where(and(eq(schema.runways.id, id), eq(schema.runways.airfieldId, airfield.id))).for('update')
     if (!runway) return false
     const before = await tx.select().from(schema.runwayEnds).where(eq(schema.runwayEnds.runwayId, id)).orderBy(asc(schema.runwayEnds.id))
-    await tx.update(schema.runways).set({ lengthM: input.lengthM ?? null, updatedAt: new Date() })
+    await tx.update(schema.runways).set({ lengthM: lengthOf(input), updatedAt: new Date() })
       .where(and(eq(schema.runways.id, id), eq(schema.runways.airfieldId, airfield.id)))
     // Clear the designators first so swapping them within the runway does not trip the unique index.
     for (const [i, row] of before.entries()) {

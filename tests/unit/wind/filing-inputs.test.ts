@@ -170,7 +170,8 @@ describe('the 15 kt check on the final approach and initial climb corridor', () 
 
 describe('F-factor, 1 km average, horizontal wind only', () => {
   // Worked by hand from the definition F = (dWx/dt)/g (Bowles 1990; the horizontal term only), with the 1 km average
-  // as the issue defines it; no published worked example was at hand. 0.1 as the hazard level: from memory.
+  // as the issue defines it; one published figure (Honeywell 2019) is checked below. 0.1 as the hazard level: airborne
+  // advisories from F of about 0.1-0.15 (Aerocrew News, "Windshear: the science, equipment and mitigation", 2024, seen).
   // Runway 36, headwind 0 at the ground growing evenly to 30 kt at 300 m and constant above.
   const input: ProfileAnalysisInput = {
     heightReference: 'AGL',
@@ -212,6 +213,32 @@ describe('F-factor, 1 km average, horizontal wind only', () => {
     expect(f.maxF).toBeCloseTo(60 * kt * gs / 9806.65, 9)
     expect(f.maxF).toBeGreaterThanOrEqual(0.1)
     expect(f.startTrackM).toBe(0)
+  })
+
+  it('F = 0.15 met at 150 kt: the engine gives the figure the published example starts from, and 0.15 x 150 kt x 24 s = 911 ft', () => {
+    // Honeywell Aerospace, "Radar Corner: Follow-Up to Understanding Windshear Detection Systems" (2019, seen): the
+    // air-mass F-factor from horizontal wind is (dWx/dx)(V/g); "an aircraft traveling at 150 knots [that] encountered a
+    // windshear with an F-factor of 0.15 for 24 seconds (1 NM) would lose 911 feet of altitude" without an escape
+    // manoeuvre. Here: a headwind on runway 36 growing evenly from calm at the ground, fitted so that the last
+    // kilometre before the threshold (52.4 m of height on 3°) gives F = 0.15 at a ground speed of 150 kt.
+    const kt = 1852 / 3600
+    const g = 9.80665
+    const drop = 1000 * Math.tan(3 * Math.PI / 180)
+    const dWxKt = 0.15 * g * 1000 / (150 * kt) / kt // 37.05 kt over the stretch
+    const perM = dWxKt / drop // kt of headwind per metre of height
+    const r = analyseProfile({
+      heightReference: 'AGL',
+      levels: [{ heightM: 0, directionDeg: 360, speedKt: 0 }, { heightM: 100, directionDeg: 360, speedKt: perM * 100 }, { heightM: 600, directionDeg: 360, speedKt: perM * 100 }],
+      runwayEnds: [{ designator: '36', trueHeadingDeg: 360 }],
+      // Ground speed at the stretch's middle (26.2 m) = true airspeed - headwind there = 150 kt.
+      paths: { arrivalTrueAirspeedKt: 150 + perM * drop / 2 },
+    })
+    const f = r.runwayEnds[0]!.fFactor.arrival!
+    expect(f.groundSpeedKt).toBeCloseTo(150, 9)
+    expect(f.maxF).toBeCloseTo(0.15, 9)
+    // The published consequence: climb performance lost at F x V, kept up for 24 s.
+    const lostFt = f.maxF * f.groundSpeedKt * kt * 24 / 0.3048 // 1 ft = 0.3048 m exactly
+    expect(Math.round(lostFt)).toBe(911)
   })
 
   it('stretches the data does not reach are left out, not extrapolated', () => {
