@@ -45,6 +45,14 @@ describe('importing a file', () => {
     const res2 = await dispatcher.post(`/api/airfields/${code}/profiles/import?format=csv&mode=file&${headerQuery()}`, engineBad)
     expect(res2.status).toBe(422)
     expect(res2.body.data.issues[0]).toMatchObject({ line: 3, index: 1 })
+    // ... in the file's own words: its column and line, never the API's path (levels[1].directionDeg).
+    expect(res2.body.data.issues[0].field).toBe('direction_deg')
+    expect(res2.body.statusMessage).toContain('line 3: direction_deg:')
+    expect(JSON.stringify(res2.body)).not.toContain('levels[')
+    const shown = await dispatcher.post(`/api/airfields/${code}/profiles/import?format=csv&mode=preview&${headerQuery()}`, engineBad)
+    expect(shown.body.columns).toEqual(['height_m', 'direction_deg', 'speed_kt'])
+    expect(shown.body.rows[1]).toEqual({ line: 3, cells: { height_m: 150, direction_deg: 361, speed_kt: 10 } })
+    expect(shown.body.issues[0]).toMatchObject({ line: 3, field: 'direction_deg' })
     expect(await Promise.all(tables.map(t => countRows(t)))).toEqual(before)
   })
 

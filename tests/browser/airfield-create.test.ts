@@ -12,7 +12,7 @@ afterAll(async () => {
 })
 
 describe('adding an airfield', () => {
-  it('takes degrees-minutes-seconds with N/S/E/W, refuses other text with an example, then points to adding runways', async () => {
+  it('takes degrees-minutes-seconds with N/S/E/W, refuses other text with an example, then points to adding runways; its empty tables say so', async () => {
     const code = await unusedCode()
     const { context } = await newContext(browser)
     const page = await context.newPage()
@@ -37,6 +37,10 @@ describe('adding an airfield', () => {
     expect(a.longitudeDeg).toBeCloseTo(7.3125, 9)
     await Promise.all([page.waitForURL(new RegExp(`/airfields/${code}#add-runway`)), page.click('[data-test="airfield-added"] a')])
     await expect.poll(() => page.locator('#add-runway').count()).toBe(1)
+    // A new airfield's empty tables say so.
+    await expect.poll(() => page.locator('[data-test="empty-table"]').allTextContents()).toEqual(expect.arrayContaining([
+      expect.stringContaining('No runways yet'), expect.stringContaining('No profiles match'),
+    ]))
     await context.close()
   })
 })

@@ -68,3 +68,29 @@ describe('a dispatcher files profiles', () => {
     await context.close()
   })
 })
+
+describe('the upload preview', () => {
+  it('shows the file as a table in its own columns, the bad row marked with the column and what is wrong', async () => {
+    const { code } = await makeAirfield(await signedIn('dispatcher'))
+    const { context } = await newContext(browser)
+    const page = await context.newPage()
+    await signInPage(page, 'dispatcher')
+    await page.goto(`/airfields/${code}/file`)
+    await page.waitForLoadState('networkidle')
+    await page.setInputFiles('[data-test="profile-file"]', {
+      name: 'levels.csv', mimeType: 'text/csv',
+      buffer: Buffer.from('height_m,direction_deg,speed_kt\n10,180,5\n150,361,10\n300,200,12\n'),
+    })
+    await expect.poll(() => page.locator('[data-test="upload-row-bad"]').count()).toBe(1)
+    const head = await page.locator('[data-test="upload-table"] thead').textContent()
+    expect(head).toContain('direction_deg')
+    const bad = await page.locator('[data-test="upload-row-bad"]').textContent()
+    expect(bad).toContain('3')
+    expect(bad).toContain('direction_deg:')
+    expect(await page.locator('[data-test="upload-table"]').textContent()).not.toContain('directionDeg')
+    expect(await page.locator('[data-test="upload-row"]').count()).toBe(2)
+    expect(await page.locator('[data-test="file-upload"]').isDisabled()).toBe(true)
+    await screenshot(page, 'upload-preview-table')
+    await context.close()
+  })
+})

@@ -11,6 +11,8 @@ const COLUMN_KEYS: Record<string, keyof ProfileLevelInput> = {
   speed_kt: 'speedKt', speed_mps: 'speedMps', gust_kt: 'gustKt', gust_mps: 'gustMps', temperature_c: 'temperatureC',
 }
 export const CSV_COLUMNS = Object.keys(COLUMN_KEYS)
+/** The file's own column for each level field (`directionDeg` → `direction_deg`). */
+export const CSV_COLUMN_OF: Record<string, string> = Object.fromEntries(Object.entries(COLUMN_KEYS).map(([column, key]) => [key, column]))
 const GROUPS = [
   // A height column (height_m or height_ft), a pressure_hpa column, or both (the height wins where both are filled).
   { name: 'height', columns: ['height_m', 'height_ft'], required: false },

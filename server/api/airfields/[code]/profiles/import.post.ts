@@ -1,11 +1,12 @@
 import { z } from 'zod'
+import type { FieldIssue } from '../../../../utils/errors'
 import { airfieldCodeParamSchema } from '#shared/utils/airfield-schema'
 import { HEIGHT_REFERENCES, PROFILE_SOURCES } from '#shared/utils/profile-schema'
 import { parseProfileCsv } from '../../../../domain/profiles/import/csv'
 import { parseProfileJson } from '../../../../domain/profiles/import/json'
 import { loadAirfield } from '../../../../domain/airfields/lookup'
 import { fileProfile, profileIssuesError } from '../../../../domain/profiles/filing'
-import { previewImport } from '../../../../domain/profiles/import/preview'
+import { fileRows, inFileWords, previewImport } from '../../../../domain/profiles/import/preview'
 
 // A CSV or JSON file as the raw body; the profile's header fields in the query (a JSON file may carry its own).
 // mode=preview answers the parsed levels and every problem with its line and saves nothing; mode=file files
@@ -38,12 +39,13 @@ export default defineApiHandler(async (event) => {
 
   if (mode === 'preview') {
     const { issues, warnings } = await previewImport(airfield, input, parsed.issues, lineOf)
-    return { levels: parsed.levels, lines: parsed.lines, header: parsed.header, issues, warnings }
+    return { levels: parsed.levels, lines: parsed.lines, header: parsed.header, issues: inFileWords(issues, format, lineOf), warnings,
+      ...fileRows(parsed.levels, parsed.lines, format) }
   }
 
   // Filing a file honours Idempotency-Key like the JSON route; the query (format and header fields) is part of it.
   const claim = idempotencyClaim(event, actor, text)
-  if (parsed.issues.length) throw profileIssuesError(parsed.issues, `The file was not filed, nothing was saved`)
+  if (parsed.issues.length) throw profileIssuesError(inFileWords(parsed.issues, format, lineOf), `The file was not filed, nothing was saved`)
   return onceForKey(event, claim, async () => {
     const filed = await useDB().transaction(async (tx) => {
       const answer = await fileProfile(tx, {
@@ -51,6 +53,10 @@ export default defineApiHandler(async (event) => {
       })
       if (claim) await storeAnswer(tx, claim, 201, answer)
       return answer
+    }).catch((err: { data?: { issues?: FieldIssue[] } }) => {
+      // The file's own columns and lines, not the API's paths.
+      if (err?.data?.issues) throw profileIssuesError(inFileWords(err.data.issues, format, lineOf), 'The file was not filed, nothing was saved')
+      throw err
     })
     setResponseStatus(event, 201)
     return filed
