@@ -25,6 +25,9 @@ describe('the briefing page', () => {
     await page.locator('[data-test=briefing-list] a[data-code=XVAL]').click()
     await page.waitForURL(/\/briefings\/XVAL$/)
     await page.waitForLoadState('networkidle')
+    // Brief runway 22: the picker puts it into the URL and the page details that end.
+    await page.locator('[data-test=pickers] [data-end="22"]').click()
+    await page.waitForURL(/end=22/)
     const api = await (await signedIn('pilot')).get('/api/airfields/XVAL/briefing')
     const b = api.body.briefing
     const card = page.locator('[data-test=runway-card][data-designator="22"]')
@@ -38,7 +41,7 @@ describe('the briefing page', () => {
     expect(await svg.locator('[data-test=polar-point]').count()).toBe(b.levels.length)
     expect(await svg.locator('[data-test=polar-compass]').count()).toBe(4)
     expect(await page.locator('[data-test=caution]').first().textContent()).toContain('Advisory only')
-    await screenshot(page, 'briefing-desktop')
+    await screenshot(page, 'briefing-desktop-xval')
     const foreign = requests.filter(u => !/^(https?|wss?):\/\/127\.0\.0\.1(:\d+)?\//.test(u) && !u.startsWith('data:'))
     expect(foreign).toEqual([])
     await context.close()
@@ -48,7 +51,7 @@ describe('the briefing page', () => {
     const { context } = await newContext(browser, { viewport: { width: 1280, height: 900 } })
     const page = await context.newPage()
     await signInPage(page, 'pilot')
-    await openBriefing(page, 'XVAL')
+    await openBriefing(page, 'XVAL?end=22')
     const b = (await (await signedIn('pilot')).get('/api/airfields/XVAL/briefing')).body.briefing
     const end = b.runwayEnds.find((e: { designator: string }) => e.designator === '22')
     const card = page.locator('[data-test=runway-card][data-designator="22"]')
@@ -107,22 +110,23 @@ describe('the briefing page', () => {
     await signInPage(page, 'pilot')
     await openBriefing(page, 'XCST')
     await page.emulateMedia({ media: 'print' })
-    const header = page.locator('.print-only')
+    const header = page.locator('[data-test=print-header]')
     expect(await header.isVisible()).toBe(true)
     const text = (await header.textContent())!
     expect(text).toMatch(/printed \d{4}-\d{2}-\d{2} \d{2}:\d{2}Z/)
-    expect(text).toMatch(/valid \d{4}-\d{2}-\d{2}T\d{2}:\d{2}Z/)
+    expect(text).toMatch(/valid \d{4}-\d{2}-\d{2} \d{2}:\d{2}Z to \d{4}-\d{2}-\d{2} \d{2}:\d{2}Z/)
     expect(text).toMatch(/doppler-lidar|model-forecast/)
     expect(text).toContain('Advisory only')
     expect(await page.locator('header.no-print').isVisible()).toBe(false)
     expect(await page.locator('[data-test=unit-picker]').isVisible()).toBe(false)
-    // Only the best-ranked end keeps its polar display on paper.
+    // One end on paper (the chosen one), its polar display with it; no interaction hint.
     expect(await page.locator('.polar-pair:visible').count()).toBe(1)
+    expect(await page.getByText('Select a level').isVisible()).toBe(false)
     const pdf = await page.pdf({ format: 'A4' })
     const pages = (pdf.toString('latin1').match(/\/Type\s*\/Page[^s]/g) ?? []).length
     expect(pages).toBeGreaterThanOrEqual(1)
     expect(pages).toBeLessThanOrEqual(2)
-    await screenshot(page, 'briefing-print')
+    await screenshot(page, 'briefing-print-xcst')
     await context.close()
   })
 
@@ -139,7 +143,7 @@ describe('the briefing page', () => {
     expect(scrollWidth).toBeLessThanOrEqual(390)
     await page.locator('[data-test=runway-card] [data-test=polar-point]').first().tap()
     expect(await page.locator('[data-test=polar-readout]').first().textContent()).toContain('AGL')
-    await screenshot(page, 'briefing-phone')
+    await screenshot(page, 'briefing-phone-xhgh')
     await context.close()
   })
 })

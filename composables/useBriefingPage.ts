@@ -1,0 +1,48 @@
+import type { LocationQueryRaw } from 'vue-router'
+
+/**
+ * The briefing page's state: the airfield, the runway end in use and the time of arrival or departure, both in the
+ * URL (`?end=27&at=2026-12-02T14:00:00Z`) so that a briefing can be shared; the end is remembered per airfield and
+ * user (a cookie, so the server renders the same end); the briefing itself at that time.
+ */
+export async function useBriefingPage() {
+  const route = useRoute()
+  const router = useRouter()
+  const code = computed(() => String(route.params.code).toUpperCase())
+  const { user } = useUserSession()
+  const remembered = useCookie<string | null>(`vl-end-${user.value?.id ?? 0}-${code.value}`, {
+    maxAge: 365 * 86400, sameSite: 'lax', default: () => null,
+  })
+
+  const at = computed(() => (typeof route.query.at === 'string' && route.query.at ? route.query.at : null))
+  const query = computed(() => ({
+    ...(at.value ? { at: at.value } : {}),
+    ...(route.query.profile ? { profile: String(route.query.profile) } : {}),
+  }))
+  const { data, error, refresh } = await useApi(() => `/api/airfields/${code.value}/briefing`, { query, key: `briefing-${code.value}` })
+  const b = computed(() => data.value?.briefing ?? null)
+  const designators = computed(() => b.value?.runwayEnds.map(e => e.designator) ?? [])
+
+  /** The end briefed first: the URL's, else the remembered one, else the best-ranked. */
+  const endDesignator = computed(() => {
+    const asked = typeof route.query.end === 'string' ? route.query.end.toUpperCase() : null
+    if (asked && designators.value.includes(asked)) return asked
+    if (remembered.value && designators.value.includes(remembered.value)) return remembered.value
+    return b.value?.ranking[0]?.designator ?? designators.value[0] ?? null
+  })
+  const end = computed(() => b.value?.runwayEnds.find(e => e.designator === endDesignator.value) ?? null)
+  const verdict = computed(() => b.value?.verdict.ends.find(v => v.designator === endDesignator.value) ?? null)
+  const change = computed(() => b.value?.change?.ends.find(e => e.designator === endDesignator.value) ?? null)
+
+  const replaceQuery = (q: LocationQueryRaw) => router.replace({ query: { ...route.query, ...q } })
+  function chooseEnd(designator: string) {
+    remembered.value = designator
+    return replaceQuery({ end: designator })
+  }
+  /** `iso` null: now (the default). */
+  function chooseTime(iso: string | null) {
+    return replaceQuery({ at: iso ?? undefined })
+  }
+
+  return { code, at, data, error, refresh, b, designators, endDesignator, end, verdict, change, chooseEnd, chooseTime }
+}
