@@ -9,6 +9,7 @@
  * at the client. On a shared machine the absolute figures move with the load: compare the ratios of one run.
  */
 import { readFileSync } from 'node:fs'
+import { cpus } from 'node:os'
 import { join } from 'node:path'
 import mysql from 'mysql2/promise'
 import { ApiClient } from '../tests/support/api'
@@ -29,6 +30,12 @@ const pct = (xs: number[], p: number) => {
   return s[Math.min(s.length - 1, Math.ceil((p / 100) * s.length) - 1)]!
 }
 const f1 = (n: number) => n.toFixed(1)
+
+/** The issue's must-show targets, each printed with its measured figure and pass/fail at the end. */
+const results: { figure: string, measured: string, target: string, pass: boolean }[] = []
+function check(figure: string, value: number, limit: number, unit: string, digits = 2) {
+  results.push({ figure, measured: `${value.toFixed(digits)}${unit}`, target: `<= ${limit.toFixed(digits)}${unit}`, pass: value <= limit })
+}
 
 /** CPU time (user + system, ms) a process has used, from /proc/<pid>/stat (fields 14 and 15, in clock ticks of 10 ms). */
 function cpuMs(pid: number | undefined) {
@@ -145,6 +152,8 @@ try {
     const two = await fanOut(`two instances, ${what}`, a, dispatcher)
     await stopInstance(b)
     console.log(`  two/one instance time ratio (${what}): ${(two / one).toFixed(2)}`)
+    check(`${EMAILS} e-mails + ${PUSHES} pushes, one instance (${what})`, one, 10, ' s')
+    check(`the same with two instances, ratio to one (${what})`, two / one, 0.6, 'x')
   }
   setSmtpDelay(0)
   setPushDelay(0)
@@ -170,6 +179,7 @@ try {
   console.log(`  control filing during a fan-out: p50 ${f1(pct(during, 50))} ms, p95 ${f1(pct(during, 95))} ms (${during.length} filings)`)
   console.log(`  during/idle p95 ratio: ${(pct(during, 95) / pct(idle, 95)).toFixed(2)}; InnoDB row lock waits while those filings ran: `
     + `${locks1.waits - locks0.waits} (${locks1.timeMs - locks0.timeMs} ms in all)`)
+  check(`control filing during a fan-out, p95 (idle p95 ${f1(pct(idle, 95))} ms; during/idle ${(pct(during, 95) / pct(idle, 95)).toFixed(2)}x)`, pct(during, 95), 100, ' ms', 1)
 
   // 3. Another airfield's first alert during a fan-out of EMAILS e-mails.
   const flood = await field('flood', a, EMAILS, 0)
@@ -190,6 +200,11 @@ try {
   const flooded = await spanOf(floodAlert)
   console.log(`  another airfield's first alert during a ${EMAILS}-recipient fan-out: sent ${(Number(first!.us) / 1e6).toFixed(2)} s after it was queued, `
     + `with ${behind!.n} of the fan-out's notices still waiting; the fan-out took ${flooded.s.toFixed(2)} s`)
+  check(`another airfield's first alert during a ${EMAILS}-recipient fan-out, queued to sent`, Number(first!.us) / 1e6, 5, ' s')
+
+  const w = Math.max(...results.map(r => r.figure.length))
+  console.log(`\nfan-out bench targets (this machine: ${cpus().length} cores, shared with the app instances, MariaDB, both stand-ins and this client):`)
+  for (const r of results) console.log(`  ${r.figure.padEnd(w)}  ${r.measured.padStart(10)}  target ${r.target.padEnd(10)}  ${r.pass ? 'pass' : 'FAIL'}`)
 }
 finally {
   for (const i of started) await stopInstance(i)
