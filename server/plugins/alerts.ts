@@ -7,6 +7,7 @@ import { randomBytes } from 'node:crypto'
 import { defaultSenders, OutboxWorker, workerOptions } from '../domain/alerts/worker'
 import { vapidKeys } from '../domain/alerts/push'
 import { closeMail } from '../domain/alerts/mailer'
+import { writeBegun } from '../domain/alerts/give-way'
 
 export default defineNitroPlugin((nitroApp) => {
   if (process.env.VEERLINE_OUTBOX_WORKER === '0' || import.meta.prerender) return
@@ -16,6 +17,12 @@ export default defineNitroPlugin((nitroApp) => {
   // Make the VAPID keys on first start, not on the first push.
   vapidKeys(db).catch(err => console.error('[veerline] VAPID keys not ready yet:', err?.message))
   const worker = new OutboxWorker(db, defaultSenders(db), workerOptions(instanceId))
+  // Write requests to the API go ahead of new sends (give-way.ts): counted from the request until its response closes.
+  nitroApp.hooks.hook('request', (event) => {
+    const method = event.method
+    if (method === 'GET' || method === 'HEAD' || method === 'OPTIONS' || !event.path.startsWith('/api/')) return
+    event.node.res.once('close', writeBegun())
+  })
   worker.start()
   console.log(`[veerline] outbox worker ${instanceId} started`)
   nitroApp.hooks.hook('close', async () => {

@@ -45,7 +45,9 @@ export interface Instance {
  */
 export async function startInstance(name: string, databaseUrl: string | undefined, env: Record<string, string> = {}): Promise<Instance> {
   const instanceId = `${name}-${process.pid}`
-  const proc = spawn(process.execPath, ['.output/server/index.mjs'], {
+  // VEERLINE_INSTANCE_NODE_ARGS: extra node flags for every instance (e.g. `--cpu-prof --cpu-prof-dir=/tmp/p` to profile a bench run).
+  const nodeArgs = (process.env.VEERLINE_INSTANCE_NODE_ARGS ?? '').split(' ').filter(Boolean)
+  const proc = spawn(process.execPath, [...nodeArgs, '.output/server/index.mjs'], {
     env: { ...process.env, ...(databaseUrl ? { DATABASE_URL: databaseUrl } : {}), PORT: '0', NITRO_PORT: '0', HOST: '127.0.0.1', NITRO_HOST: '127.0.0.1',
       VEERLINE_INSTANCE_ID: instanceId, ...env },
     stdio: ['ignore', 'pipe', 'pipe'],

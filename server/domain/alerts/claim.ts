@@ -83,38 +83,55 @@ export type Outcome
     | { row: OutboxRow, token: string, outcome: 'released' }
 
 /**
- * Writes results back, each message on its own (several in one short transaction when they come in together).
+ * Writes results back as they come: each message's own outcome, several in one short transaction when they come in
+ * together (a few set-based statements per claim token for the sends and the give-backs, one pair per error).
  * Each update names the claim token: a result that comes back after the lease was lost still lands in its attempt
  * record, but does not overwrite the newer claimer's state.
  */
 export async function recordOutcomes(db: DB, outcomes: Outcome[]) {
   if (!outcomes.length) return
+  const groups = new Map<string, { outcome: 'sent' | 'released', token: string, instanceId: string, ids: number[] }>()
+  const errors: Extract<Outcome, { outcome: 'error' }>[] = []
+  for (const r of outcomes) {
+    if (r.outcome === 'error') {
+      errors.push(r)
+      continue
+    }
+    const instanceId = r.outcome === 'sent' ? r.instanceId : ''
+    const key = `${r.outcome} ${r.token} ${instanceId}`
+    const g = groups.get(key) ?? { outcome: r.outcome, token: r.token, instanceId, ids: [] }
+    g.ids.push(r.row.id)
+    groups.set(key, g)
+  }
   await db.transaction(async (tx) => {
-    for (const r of outcomes) {
-      const where = sql`id = ${r.row.id} AND claim_token = ${r.token}`
-      if (r.outcome === 'sent') {
+    for (const g of groups.values()) {
+      const idList = sql.join(g.ids.map(id => sql`${id}`), sql`, `)
+      const where = sql`id IN (${idList}) AND claim_token = ${g.token}`
+      if (g.outcome === 'sent') {
         // A sign-in link is not kept once it is on its way: only its hash stays, in user_tokens.
-        const redact = r.row.kind === 'invitation' || r.row.kind === 'password-reset'
-        await tx.execute(sql`UPDATE outbox SET state = 'sent', sent_at = NOW(3), sent_by = ${r.instanceId}, last_error = NULL,
-          lease_until = NULL, updated_at = NOW(3)${redact ? sql`, text_body = '(link removed after sending)', html_body = NULL` : sql``} WHERE ${where}`)
+        await tx.execute(sql`UPDATE outbox SET state = 'sent', sent_at = NOW(3), sent_by = ${g.instanceId}, last_error = NULL,
+          lease_until = NULL, updated_at = NOW(3),
+          text_body = IF(kind IN ('invitation', 'password-reset'), '(link removed after sending)', text_body),
+          html_body = IF(kind IN ('invitation', 'password-reset'), NULL, html_body) WHERE ${where}`)
         await tx.execute(sql`UPDATE outbox_attempts SET outcome = 'sent', finished_at = NOW(3), error = NULL
-          WHERE outbox_id = ${r.row.id} AND claim_token = ${r.token}`)
-      }
-      else if (r.outcome === 'error') {
-        const next = r.retryInMs == null
-          ? sql`state = 'failed'`
-          : sql`next_attempt_at = NOW(3) + INTERVAL ${ms(r.retryInMs)} MICROSECOND, fan_seq = ${OUTBOX_RETRY_LANE}`
-        await tx.execute(sql`UPDATE outbox SET ${next}, last_error = ${r.error.slice(0, 1000)}, lease_until = NULL, updated_at = NOW(3) WHERE ${where}`)
-        await tx.execute(sql`UPDATE outbox_attempts SET outcome = 'error', finished_at = NOW(3), error = ${r.error.slice(0, 1000)}
-          WHERE outbox_id = ${r.row.id} AND claim_token = ${r.token}`)
+          WHERE outbox_id IN (${idList}) AND claim_token = ${g.token}`)
       }
       else {
         // Given back unsent by a stopping worker: due again now, and the claim does not count as an attempt.
         await tx.execute(sql`UPDATE outbox SET next_attempt_at = NOW(3), lease_until = NULL, attempts = GREATEST(0, attempts - 1),
           updated_at = NOW(3) WHERE ${where}`)
         await tx.execute(sql`UPDATE outbox_attempts SET outcome = 'released', finished_at = NOW(3)
-          WHERE outbox_id = ${r.row.id} AND claim_token = ${r.token}`)
+          WHERE outbox_id IN (${idList}) AND claim_token = ${g.token}`)
       }
+    }
+    for (const r of errors) {
+      const where = sql`id = ${r.row.id} AND claim_token = ${r.token}`
+      const next = r.retryInMs == null
+        ? sql`state = 'failed'`
+        : sql`next_attempt_at = NOW(3) + INTERVAL ${ms(r.retryInMs)} MICROSECOND, fan_seq = ${OUTBOX_RETRY_LANE}`
+      await tx.execute(sql`UPDATE outbox SET ${next}, last_error = ${r.error.slice(0, 1000)}, lease_until = NULL, updated_at = NOW(3) WHERE ${where}`)
+      await tx.execute(sql`UPDATE outbox_attempts SET outcome = 'error', finished_at = NOW(3), error = ${r.error.slice(0, 1000)}
+        WHERE outbox_id = ${r.row.id} AND claim_token = ${r.token}`)
     }
   }, { isolationLevel: 'read committed' })
 }

@@ -7,6 +7,7 @@ import type { DB } from '../../utils/db'
 import type { OutboxRow } from '../../db/schema'
 import { nextDelayMs, workerTiming, type WorkerTiming } from './backoff'
 import { claimDue, recordOutcomes, type Outcome } from './claim'
+import { writesSettled } from './give-way'
 import { sendMail } from './mailer'
 import { PushGoneError, PushRefusedError, sendPush } from './push'
 
@@ -40,6 +41,8 @@ export interface WorkerOptions {
   batchSize: number
   concurrency: { email: number, push: number }
   intervalMs: number
+  /** Longest a new send waits for this instance's write requests to be answered (give-way.ts). */
+  giveWayMs: number
   timing: WorkerTiming
 }
 
@@ -53,18 +56,28 @@ export function workerOptions(instanceId: string, env: NodeJS.ProcessEnv = proce
     batchSize: int('VEERLINE_OUTBOX_BATCH', 50),
     concurrency: { email: int('VEERLINE_OUTBOX_EMAIL_CONCURRENCY', 8), push: int('VEERLINE_OUTBOX_PUSH_CONCURRENCY', 16) },
     intervalMs: int('VEERLINE_OUTBOX_INTERVAL_MS', 250),
+    giveWayMs: int('VEERLINE_OUTBOX_GIVE_WAY_MS', 200),
     timing: workerTiming(env),
   }
 }
 
-/** Runs `fn` over `items` with at most `limit` at once; stops taking new items once `stopped()` says so. */
-async function eachBounded<T>(items: T[], limit: number, stopped: () => boolean, fn: (item: T) => Promise<void>): Promise<T[]> {
-  let next = 0
-  const lanes = Array.from({ length: Math.min(limit, items.length) }, async () => {
-    while (next < items.length && !stopped()) await fn(items[next++]!)
-  })
-  await Promise.all(lanes)
-  return items.slice(next)
+/** A bound on concurrent sends: `acquire` resolves once one of `limit` slots is free. */
+class Slots {
+  private waiters: (() => void)[] = []
+  constructor(private free: number) {}
+  async acquire() {
+    if (this.free > 0) {
+      this.free--
+      return
+    }
+    await new Promise<void>(r => this.waiters.push(r))
+  }
+
+  release() {
+    const next = this.waiters.shift()
+    if (next) next()
+    else this.free++
+  }
 }
 
 export class OutboxWorker {
@@ -93,31 +106,49 @@ export class OutboxWorker {
     this.timer.unref?.()
   }
 
-  /** Claims and sends batch after batch while full batches come back (bounded per call), then rests. */
+  /**
+   * Claims and sends batch after batch while full batches come back (bounded per call), then rests. Each channel
+   * starts the rows of a claim as its slots free up, and the next claim is made as soon as every row of this one has
+   * started: the send lanes stay busy over the tail of a batch instead of waiting for its slowest send. At most
+   * one batch waits for a slot (besides the sends in flight), so a later alert of another airfield is at most one
+   * batch behind.
+   */
   private async run() {
+    const slots = { email: new Slots(this.opts.concurrency.email), push: new Slots(this.opts.concurrency.push) }
+    const inFlight = new Set<Promise<void>>()
     try {
       for (let round = 0; round < 1000 && !this.stopping; round++) {
-        const sent = await this.runOnce()
-        if (sent < this.opts.batchSize) break
+        const { token, rows } = await claimDue(this.db, this.opts.instanceId, { batchSize: this.opts.batchSize, leaseMs: this.opts.timing.leaseMs })
+        if (!rows.length) break
+        await Promise.all((['email', 'push'] as const).map(async (ch) => {
+          for (const row of rows.filter(r => r.channel === ch)) {
+            // A filing (or another write) being answered by this instance goes first (give-way.ts).
+            await writesSettled(this.opts.giveWayMs)
+            await slots[ch].acquire()
+            if (this.stopping) {
+              // Stopping: what has not started goes back to the queue, unsent and recorded as given back.
+              slots[ch].release()
+              this.record([{ row, token, outcome: 'released' }])
+              continue
+            }
+            const send: Promise<void> = this.sendOne(row, token).finally(() => {
+              slots[ch].release()
+              inFlight.delete(send)
+            })
+            inFlight.add(send)
+          }
+        }))
+        if (rows.length < this.opts.batchSize) break
       }
     }
     catch (err) {
       this.lastError = (err as Error).message
       console.error('[veerline] outbox worker:', this.lastError)
     }
-  }
-
-  /** One claim and its sends; returns how many rows were claimed. */
-  async runOnce(): Promise<number> {
-    const { token, rows } = await claimDue(this.db, this.opts.instanceId, { batchSize: this.opts.batchSize, leaseMs: this.opts.timing.leaseMs })
-    if (!rows.length) return 0
-    const byChannel = { email: rows.filter(r => r.channel === 'email'), push: rows.filter(r => r.channel === 'push') }
-    const left = await Promise.all((['email', 'push'] as const).map(ch =>
-      eachBounded(byChannel[ch], this.opts.concurrency[ch], () => this.stopping, row => this.sendOne(row, token))))
-    const unsent = left.flat()
-    if (unsent.length) this.record(unsent.map(row => ({ row, token, outcome: 'released' as const })))
-    await this.flush()
-    return rows.length
+    finally {
+      await Promise.all(inFlight)
+      await this.flush()
+    }
   }
 
   private async sendOne(row: OutboxRow, token: string) {
