@@ -4,18 +4,32 @@ import { recordAudit } from '../../utils/audit'
 import { notFound } from '../../utils/errors'
 import { outboxStatus } from './outbox-status'
 
-export type AlertLogFilter = { airfieldId?: number, state?: 'active' | 'cleared' | 'superseded' | 'expired', limit: number }
+export type AlertLogFilter = { airfieldId?: number, state?: 'active' | 'cleared' | 'superseded' | 'expired', kind?: string, limit: number, page?: number }
 
-/** The alert log: every alert, newest first, with each of its deliveries (state, attempts, last error). */
+/** How many alerts the log's filter matches (for paging). */
+export async function countAlerts(filter: AlertLogFilter) {
+  const a = schema.alerts
+  const [row] = await useDB().select({ n: sql<number>`COUNT(*)` }).from(a).where(alertLogWhere(filter))
+  return Number(row?.n ?? 0)
+}
+
+function alertLogWhere(filter: AlertLogFilter) {
+  const a = schema.alerts
+  return and(filter.airfieldId ? eq(a.airfieldId, filter.airfieldId) : undefined, filter.state ? eq(a.state, filter.state) : undefined,
+    filter.kind ? eq(a.kind, filter.kind) : undefined)
+}
+
+/** The alert log: every alert, newest first (a page of `limit`), with each of its deliveries (state, attempts, last error). */
 export async function listAlerts(filter: AlertLogFilter) {
   const a = schema.alerts
   const rows = await useDB().select({ alert: a, airfieldCode: schema.airfields.code, profile: { validFrom: schema.profiles.validFrom, validTo: schema.profiles.validTo } })
     .from(a)
     .innerJoin(schema.airfields, eq(schema.airfields.id, a.airfieldId))
     .innerJoin(schema.profiles, eq(schema.profiles.id, a.profileId))
-    .where(and(filter.airfieldId ? eq(a.airfieldId, filter.airfieldId) : undefined, filter.state ? eq(a.state, filter.state) : undefined))
+    .where(alertLogWhere(filter))
     .orderBy(desc(a.id))
     .limit(filter.limit)
+    .offset(((filter.page ?? 1) - 1) * filter.limit)
   const o = schema.outbox
   const deliveries = rows.length
     ? await useDB().select({ id: o.id, deliveryId: o.deliveryId, alertId: o.alertId, kind: o.kind, channel: o.channel, to: o.toAddress, userId: o.userId, state: o.state,
