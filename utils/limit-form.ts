@@ -2,7 +2,7 @@ import { z } from 'zod'
 import { LIMIT_RANGES } from '~~/shared/limits'
 
 // The limit form's schema: the same ranges and messages as the server (LIMIT_RANGES), blank = inherit.
-export const LIMIT_FIELDS = ['maxCrosswindKt', 'maxTailwindKt', 'maxLayerShearKtPer100ft', 'maxVectorDiff600mKt', 'maxAirspeedLossKt', 'nearLimitMarginPct'] as const
+export const LIMIT_FIELDS = ['maxCrosswindKt', 'maxTailwindKt', 'maxLayerShearKtPer100ft', 'maxVectorDiff600mKt', 'maxAirspeedLossKt', 'maxFFactor', 'nearLimitMarginPct'] as const
 export type LimitFieldKey = typeof LIMIT_FIELDS[number]
 // LIMIT_RANGES is plain data in a framework-free module, so the form and the server read the same numbers.
 const RANGES = LIMIT_RANGES

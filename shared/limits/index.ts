@@ -81,7 +81,7 @@ export interface LimitCheck {
   message: string
 }
 
-const KIND_WORDS: Record<LimitKind, string> = {
+export const KIND_WORDS: Record<LimitKind, string> = {
   'crosswind': 'Crosswind',
   'crosswind-gust': 'Gust crosswind',
   'tailwind': 'Tailwind',

@@ -40,6 +40,7 @@ const MATRIX: Record<string, Access & { fresh?: boolean }> = {
   'GET /api/alerts/inbox': ANY,
   'GET /api/alerts/inbox/count': ANY,
   'POST /api/alerts/inbox/[id]/acknowledge': ANY,
+  'POST /api/alerts/inbox/acknowledge': ANY,
   'GET /api/audit': roles('admin', 'safety'),
   'GET /api/briefings': ANY,
   'POST /api/invitations': roles('admin'),

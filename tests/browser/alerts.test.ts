@@ -38,7 +38,17 @@ describe('limits and alerts in the browser', () => {
     const form = safety.locator('[data-test="limits-airfield-form"]')
     await form.locator('input[name="maxCrosswindKt"]').fill('18')
     await form.locator('input[name="reason"]').fill('Gusty season: lower crosswind limit for the light fleet')
-    await form.locator('button[type=submit]').click()
+    await form.locator('[data-test="limits-review-button"]').click()
+    // The dry run shows the effect before anything is saved; lowering needs the confirmation of that list.
+    const review = form.locator('[data-test="limits-review"]')
+    await review.waitFor()
+    expect(await review.textContent()).toContain('lowers a limit')
+    expect(await review.locator('[data-test="limits-effect-row"]', { hasText: `${code} runway 18` }).count()).toBeGreaterThan(0)
+    expect(await form.locator('[data-test="limits-save"]').isDisabled()).toBe(true)
+    await screenshot(safety, 'limits-review')
+    await form.locator('[data-test="confirm-lowering"]').check()
+    await form.locator('[data-test="limits-save"]').click()
+    await expect.poll(() => safety.locator('[data-test="limits-saved"]').textContent(), { timeout: 15_000 }).toMatch(/Saved:.*\d+ alerts? raised/s)
     await expect.poll(() => safety.locator('[data-test="limits-history"]').textContent(), { timeout: 15_000 })
       .toContain('Gusty season: lower crosswind limit for the light fleet')
     await screenshot(safety, 'limits-lowered')
@@ -49,12 +59,18 @@ describe('limits and alerts in the browser', () => {
     await signInPage(pilot, 'pilot')
     await expect.poll(async () => Number(await pilot.locator('[data-test="alerts-count"]').textContent()), { timeout: 15_000 }).toBeGreaterThan(0)
     await pilot.goto('/alerts')
-    const item = pilot.locator('[data-test="inbox-item"]', { hasText: `${code} runway 18` })
+    const group = pilot.locator(`[data-test="inbox-group"][data-airfield="${code}"]`)
+    const item = group.locator('[data-test="inbox-item"]', { hasText: 'runway 18' })
     await expect.poll(() => item.count(), { timeout: 15_000 }).toBe(1)
     expect(await item.textContent()).toContain('19.3 kt')
+    // The alert raised by a limit change says so, with the reason given.
+    expect(await item.textContent()).toContain('Gusty season')
     await screenshot(pilot, 'alerts-inbox')
-    await item.locator('[data-test="acknowledge"]').click()
-    await expect.poll(() => item.textContent()).toContain('Acknowledged')
+    await group.locator('[data-test="acknowledge-airfield"]').click()
+    await expect.poll(() => item.getAttribute('data-acknowledged')).toBe('yes')
+    expect(await pilot.locator('[data-test="inbox-notice"]').textContent()).toMatch(new RegExp(`acknowledged`))
+    expect(await group.locator('[data-test="inbox-item"][data-acknowledged="no"]').count()).toBe(0)
+    await screenshot(pilot, 'alerts-inbox-acknowledged')
     await pilotCtx.close()
 
     const { context: adminCtx } = await newContext(browser)
@@ -70,5 +86,30 @@ describe('limits and alerts in the browser', () => {
     expect(await mail.first().textContent()).toContain('Limit: 18 kt')
     await screenshot(admin, 'mailbox')
     await adminCtx.close()
+  }, 120_000) // a hang guard for a loaded machine, not a speed check
+
+  it('reading a briefing offers to acknowledge the reader\'s alerts of that airfield', async () => {
+    // Runway 18/36, wind 270° at 30 kt: 30 kt crosswind (common practice: a wind at right angles is all crosswind),
+    // over the default 20 kt limit.
+    const code = await createTestAirfield({ 18: 180, 36: 360 }, 'Briefing acknowledge field')
+    const filed = await (await signedIn('dispatcher')).post(`/api/airfields/${code}/profiles`, windProfile(270, 30))
+    expect(filed.status).toBe(201)
+    const pilotApi = await signedIn('pilot')
+    // Following puts the airfield's active alerts into the inbox.
+    expect((await pilotApi.put(`/api/subscriptions/${code}`, { email: false, push: false })).status).toBe(200)
+    const open = async () => (await pilotApi.get(`/api/alerts/inbox?airfield=${code}&unacknowledged=1`)).body.total as number
+    expect(await open()).toBeGreaterThan(0)
+
+    const { context } = await newContext(browser)
+    const pilot = await context.newPage()
+    await signInPage(pilot, 'pilot')
+    await pilot.goto(`/briefings/${code}`)
+    await pilot.waitForLoadState('networkidle')
+    const offer = pilot.locator('[data-test="briefing-inbox-offer"]')
+    expect(await offer.textContent()).toMatch(new RegExp(`You have \\d+ unacknowledged alerts? for ${code}`))
+    await offer.locator('[data-test="briefing-acknowledge"]').click()
+    await expect.poll(() => offer.textContent()).toMatch(new RegExp(`\\d+ alerts? of ${code} acknowledged`))
+    expect(await open()).toBe(0)
+    await context.close()
   }, 120_000) // a hang guard for a loaded machine, not a speed check
 })

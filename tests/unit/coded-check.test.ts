@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import { parseCodedLines } from '../../server/domain/profiles/import/coded'
-import { codedReportWarnings } from '../../server/domain/profiles/coded-check'
+import { codedAgeLimits, codedReportWarnings } from '../../server/domain/profiles/coded-check'
 import { analyseProfile } from '../../shared/wind'
 import { DEFAULT_LIMITS, evaluateLimits } from '../../shared/limits'
 
@@ -19,6 +19,13 @@ describe('coded reports checked against the airfield', () => {
   it('a fresh METAR of the station itself gives none; 91 minutes is too old by the 90-minute default', () => {
     expect(codedReportWarnings(parseCodedLines('METAR XCST 121130Z 23020KT', now).reports, { station: 'XCST', now })).toEqual([])
     expect(codedReportWarnings(parseCodedLines('METAR XCST 121029Z 23020KT', now).reports, { station: 'XCST', now }).map(x => x.code)).toEqual(['report-old'])
+  })
+
+  it('the age limit is a setting: VEERLINE_METAR_MAX_AGE_MINUTES=120 lets a 91-minute METAR pass; nonsense keeps the default', () => {
+    const limits = codedAgeLimits({ VEERLINE_METAR_MAX_AGE_MINUTES: '120' })
+    expect(limits).toEqual({ metarMaxAgeMinutes: 120, tafMaxAgeMinutes: 360 })
+    expect(codedReportWarnings(parseCodedLines('METAR XCST 121029Z 23020KT', now).reports, { station: 'XCST', now, ...limits })).toEqual([])
+    expect(codedAgeLimits({ VEERLINE_METAR_MAX_AGE_MINUTES: 'soon', VEERLINE_TAF_MAX_AGE_MINUTES: '0' })).toEqual({ metarMaxAgeMinutes: 90, tafMaxAgeMinutes: 360 })
   })
 
   it('a TAF whose validity has ended is a warning', () => {

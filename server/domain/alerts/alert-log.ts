@@ -4,23 +4,52 @@ import { recordAudit } from '../../utils/audit'
 import { notFound } from '../../utils/errors'
 import { outboxStatus } from './outbox-status'
 
-export type AlertLogFilter = { airfieldId?: number, state?: 'active' | 'cleared' | 'superseded' | 'expired', limit: number }
+export type AlertLogFilter = {
+  airfieldId?: number
+  state?: 'active' | 'cleared' | 'superseded' | 'expired'
+  kind?: string
+  /** 'failed': only alerts with a notice that failed for good (where the header's "not delivered" notice leads). */
+  delivery?: 'failed'
+  limit: number
+  page?: number
+}
 
-/** The alert log: every alert, newest first, with each of its deliveries (state, attempts, last error). */
+/** How many alerts the log's filter matches (for paging). */
+export async function countAlerts(filter: AlertLogFilter) {
+  const a = schema.alerts
+  const [row] = await useDB().select({ n: sql<number>`COUNT(*)` }).from(a).where(alertLogWhere(filter))
+  return Number(row?.n ?? 0)
+}
+
+function alertLogWhere(filter: AlertLogFilter) {
+  const a = schema.alerts
+  const o = schema.outbox
+  return and(filter.airfieldId ? eq(a.airfieldId, filter.airfieldId) : undefined, filter.state ? eq(a.state, filter.state) : undefined,
+    filter.kind ? eq(a.kind, filter.kind) : undefined,
+    filter.delivery === 'failed' ? sql`EXISTS (SELECT 1 FROM ${o} WHERE ${o.alertId} = ${a.id} AND ${o.state} = 'failed')` : undefined)
+}
+
+/** The alert log: every alert, newest first (a page of `limit`), with each of its deliveries (state, attempts, last error). */
 export async function listAlerts(filter: AlertLogFilter) {
   const a = schema.alerts
   const rows = await useDB().select({ alert: a, airfieldCode: schema.airfields.code, profile: { validFrom: schema.profiles.validFrom, validTo: schema.profiles.validTo } })
     .from(a)
     .innerJoin(schema.airfields, eq(schema.airfields.id, a.airfieldId))
     .innerJoin(schema.profiles, eq(schema.profiles.id, a.profileId))
-    .where(and(filter.airfieldId ? eq(a.airfieldId, filter.airfieldId) : undefined, filter.state ? eq(a.state, filter.state) : undefined))
+    .where(alertLogWhere(filter))
     .orderBy(desc(a.id))
     .limit(filter.limit)
+    .offset(((filter.page ?? 1) - 1) * filter.limit)
   const o = schema.outbox
+  const u = schema.users
+  const ps = schema.pushSubscriptions
+  // Who it was for, in words: the person's name, and for a push the device's label (none once the device is gone).
   const deliveries = rows.length
-    ? await useDB().select({ id: o.id, deliveryId: o.deliveryId, alertId: o.alertId, kind: o.kind, channel: o.channel, to: o.toAddress, userId: o.userId, state: o.state,
+    ? await useDB().select({ id: o.id, deliveryId: o.deliveryId, alertId: o.alertId, kind: o.kind, channel: o.channel, to: o.toAddress, userId: o.userId,
+        recipientName: u.name, recipientEmail: u.email, device: ps.label, state: o.state,
         attempts: o.attempts, lastError: o.lastError, nextAttemptAt: o.nextAttemptAt, sentAt: o.sentAt, sentBy: o.sentBy, createdAt: o.createdAt })
-        .from(o).where(inArray(o.alertId, rows.map(r => r.alert.id))).orderBy(asc(o.id))
+        .from(o).leftJoin(u, eq(u.id, o.userId)).leftJoin(ps, eq(ps.id, o.pushSubscriptionId))
+        .where(inArray(o.alertId, rows.map(r => r.alert.id))).orderBy(asc(o.id))
     : []
   // Every attempt of every delivery: who claimed it and how it ended (a resend shows as a second attempt).
   const t = schema.outboxAttempts

@@ -33,6 +33,8 @@ export interface EvaluationOptions {
   now?: Date
   /** Analyses already made by the caller (the profile just filed), so the engine does not run twice on them. */
   analyses?: ReadonlyMap<number, ProfileAnalysis>
+  /** Why this run happens, when not a profile (a limit change and its reason): said on the alerts it raises or clears. */
+  cause?: string
 }
 
 /** The app's public address, for links in notices. */
@@ -78,13 +80,15 @@ export async function evaluateAirfield(tx: Tx, airfieldId: number, options: Eval
   const plan = planAlerts({ now, candidates, existing, profiles: new Map<number, ProfileFacts>(factsNow.map(f => [f.id, f])) })
 
   const summary: EvaluationSummary = { airfieldId, raised: [], cleared: [], carried: [], updated: [] }
-  const fields = (c: LimitCheck) => ({ value: c.value, limitValue: c.limit, unit: c.unit, excess: c.excess, message: c.message.slice(0, 300) })
+  const because = (text: string) => (options.cause ? `${text}, ${options.cause}` : text).slice(0, 300)
+  const fields = (c: LimitCheck, raised = false) => ({ value: c.value, limitValue: c.limit, unit: c.unit, excess: c.excess,
+    message: raised ? because(c.message) : c.message.slice(0, 300) })
   for (const step of plan) {
     switch (step.action) {
       case 'insert': {
         const [row] = await tx.insert(a).values({
           airfieldId, profileId: step.profileId, designator: step.check.designator ?? '', kind: step.check.kind,
-          ...fields(step.check), continuesAlertId: step.continuesAlertId,
+          ...fields(step.check, step.notify && options.cause != null), continuesAlertId: step.continuesAlertId,
         }).$returningId()
         if (step.continuesAlertId != null) {
           // The inbox follows the chain: the same entries now point at the newer version's alert.
@@ -102,7 +106,7 @@ export async function evaluateAirfield(tx: Tx, airfieldId: number, options: Eval
         summary.updated.push(step.alertId)
         break
       case 'reactivate':
-        await tx.update(a).set({ ...fields(step.check), state: 'active', clearedAt: null, clearReason: null,
+        await tx.update(a).set({ ...fields(step.check, options.cause != null), state: 'active', clearedAt: null, clearReason: null,
           raisedCount: sql`${a.raisedCount} + 1`, updatedAt: now }).where(eq(a.id, step.alertId))
         await enqueueAlertNotices(tx, step.alertId, 'raised', appUrl)
         summary.raised.push(step.alertId)
@@ -115,7 +119,7 @@ export async function evaluateAirfield(tx: Tx, airfieldId: number, options: Eval
         await tx.update(a).set({ state: 'expired', clearedAt: now, clearReason: 'The profile\'s validity ended', updatedAt: now }).where(eq(a.id, step.alertId))
         break
       case 'clear':
-        await tx.update(a).set({ state: 'cleared', clearedAt: now, clearReason: step.reason.slice(0, 300), updatedAt: now }).where(eq(a.id, step.alertId))
+        await tx.update(a).set({ state: 'cleared', clearedAt: now, clearReason: because(step.reason), updatedAt: now }).where(eq(a.id, step.alertId))
         await enqueueAlertNotices(tx, step.alertId, 'cleared', appUrl)
         summary.cleared.push(step.alertId)
         break

@@ -1,4 +1,4 @@
-import { and, desc, eq, isNull, schema, sql, useDB } from '../../utils/db'
+import { and, desc, eq, inArray, isNull, schema, sql, useDB } from '../../utils/db'
 import { notFound } from '../../utils/errors'
 
 /** How many of the user's inbox entries are not acknowledged (the badge in the navigation). */
@@ -8,11 +8,17 @@ export async function unacknowledgedCount(userId: number) {
   return Number(count?.n ?? 0)
 }
 
-/** The user's alerts inbox, newest first (the latest 200), with the count not yet acknowledged. */
-export async function inboxOf(userId: number) {
+export interface InboxFilter { airfieldId?: number, kind?: string, unacknowledged?: boolean, page: number, pageSize: number }
+
+/** The user's alerts inbox, newest first, filtered and paged on the server, with the count not yet acknowledged. */
+export async function inboxOf(userId: number, filter: InboxFilter = { page: 1, pageSize: 200 }) {
   const i = schema.alertInbox
   const a = schema.alerts
-  const [items, unacknowledged] = await Promise.all([
+  const where = and(eq(i.userId, userId),
+    filter.airfieldId != null ? eq(a.airfieldId, filter.airfieldId) : undefined,
+    filter.kind ? eq(a.kind, filter.kind) : undefined,
+    filter.unacknowledged ? isNull(i.acknowledgedAt) : undefined)
+  const [items, [total], unacknowledged] = await Promise.all([
     useDB().select({
       id: i.id, event: i.event, title: i.title, acknowledgedAt: i.acknowledgedAt, createdAt: i.createdAt,
       alert: { id: a.id, designator: a.designator, kind: a.kind, value: a.value, limit: a.limitValue, unit: a.unit, excess: a.excess,
@@ -23,12 +29,29 @@ export async function inboxOf(userId: number) {
       .innerJoin(a, eq(a.id, i.alertId))
       .innerJoin(schema.airfields, eq(schema.airfields.id, a.airfieldId))
       .innerJoin(schema.profiles, eq(schema.profiles.id, a.profileId))
-      .where(eq(i.userId, userId))
+      .where(where)
       .orderBy(desc(i.id))
-      .limit(200),
+      .limit(filter.pageSize)
+      .offset((filter.page - 1) * filter.pageSize),
+    useDB().select({ n: sql<number>`COUNT(*)` }).from(i).innerJoin(a, eq(a.id, i.alertId)).where(where),
     unacknowledgedCount(userId),
   ])
-  return { items, unacknowledged }
+  return { items, unacknowledged, total: Number(total?.n ?? 0), page: filter.page, pageSize: filter.pageSize }
+}
+
+/**
+ * Acknowledges many of the user's own entries at once: all of one airfield's, or those ids. Others' entries and ones
+ * already acknowledged are left as they are; answers how many were acknowledged now.
+ */
+export async function acknowledgeInboxEntries(userId: number, which: { airfieldId: number } | { ids: number[] }) {
+  const i = schema.alertInbox
+  const a = schema.alerts
+  const now = new Date()
+  const scope = 'ids' in which
+    ? inArray(i.id, which.ids)
+    : inArray(i.alertId, useDB().select({ id: a.id }).from(a).where(eq(a.airfieldId, which.airfieldId)))
+  const [result] = await useDB().update(i).set({ acknowledgedAt: now }).where(and(eq(i.userId, userId), isNull(i.acknowledgedAt), scope))
+  return { acknowledged: result.affectedRows, acknowledgedAt: now, unacknowledged: await unacknowledgedCount(userId) }
 }
 
 /** Acknowledges one of the user's own inbox entries (404 for anyone else's); acknowledging twice keeps the first time. */

@@ -38,3 +38,9 @@ export const limitChangeSchema = z.object({
   reason: z.string({ required_error: 'Give a reason for the change' }).trim()
     .min(5, 'Give a reason for the change (at least 5 characters)').max(500, 'Keep the reason under 500 characters'),
 })
+
+/** `?dryRun=1` on a limit change: answer what it would do, save nothing. */
+export const dryRunQuerySchema = z.object({
+  dryRun: z.enum(['1', 'true', '0', 'false'], { errorMap: () => ({ message: 'dryRun must be 1 or 0' }) }).optional()
+    .transform(v => v === '1' || v === 'true'),
+})

@@ -1,6 +1,8 @@
 import type { Airfield } from '../../db/schema'
 import { and, eq, schema, sql, useDB } from '../../utils/db'
 import { notFound } from '../../utils/errors'
+import { alertNoticeData } from './outbox'
+import { alertTitle } from './messages'
 
 export type Channels = { email: boolean, push: boolean }
 
@@ -16,11 +18,28 @@ export async function subscriptionsOf(userId: number) {
   return { subscriptions, airfields, pushDevices: Number(devices[0]?.n ?? 0) }
 }
 
-/** Follows an airfield (or changes the channels). The in-app inbox always receives its alerts. */
+/**
+ * Follows an airfield (or changes the channels). The in-app inbox always receives its alerts; the ones active now are
+ * put there at once, each once: an alert already in the follower's inbox is not added again.
+ */
 export async function follow(userId: number, airfield: Airfield, channels: Channels) {
-  await useDB().insert(schema.alertSubscriptions).values({ userId, airfieldId: airfield.id, ...channels })
-    .onDuplicateKeyUpdate({ set: channels })
-  return { airfieldCode: airfield.code, ...channels }
+  const delivered = await useDB().transaction(async (tx) => {
+    await tx.insert(schema.alertSubscriptions).values({ userId, airfieldId: airfield.id, ...channels })
+      .onDuplicateKeyUpdate({ set: channels })
+    const a = schema.alerts
+    const i = schema.alertInbox
+    const active = await tx.select({ id: a.id }).from(a)
+      .where(and(eq(a.airfieldId, airfield.id), eq(a.state, 'active'),
+        sql`NOT EXISTS (SELECT 1 FROM ${i} WHERE ${i.userId} = ${userId} AND ${i.alertId} = ${a.id})`))
+      .orderBy(a.id)
+      .for('update')
+    for (const { id } of active) {
+      const title = alertTitle(await alertNoticeData(tx, id, 'raised', '')).slice(0, 300)
+      await tx.insert(i).values({ userId, alertId: id, event: 'raised', title })
+    }
+    return active.length
+  })
+  return { airfieldCode: airfield.code, ...channels, activeAlertsDelivered: delivered }
 }
 
 export async function unfollow(userId: number, airfield: Airfield) {

@@ -50,3 +50,15 @@ function formatAge(minutes: number): string {
   const m = minutes % 60
   return m ? `${h} h ${m} min` : `${h} hours`
 }
+
+/**
+ * The age limits in force: `VEERLINE_METAR_MAX_AGE_MINUTES` and `VEERLINE_TAF_MAX_AGE_MINUTES` (whole minutes,
+ * 1 to 1440), else the defaults above. A value that is not such a number is ignored.
+ */
+export function codedAgeLimits(env: Record<string, string | undefined> = process.env): { metarMaxAgeMinutes: number, tafMaxAgeMinutes: number } {
+  const read = (v: string | undefined, fallback: number) => {
+    const n = Number(v)
+    return v !== undefined && Number.isInteger(n) && n >= 1 && n <= 1440 ? n : fallback
+  }
+  return { metarMaxAgeMinutes: read(env.VEERLINE_METAR_MAX_AGE_MINUTES, METAR_MAX_AGE_MINUTES), tafMaxAgeMinutes: read(env.VEERLINE_TAF_MAX_AGE_MINUTES, TAF_MAX_AGE_MINUTES) }
+}

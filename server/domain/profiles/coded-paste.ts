@@ -1,5 +1,5 @@
 import type { Airfield } from '../../db/schema'
-import { codedReportWarnings } from './coded-check'
+import { codedAgeLimits, codedReportWarnings } from './coded-check'
 import { profileIssuesError } from './filing'
 import { parseCodedLines } from './import/coded'
 
@@ -11,7 +11,7 @@ export function readCodedPaste(text: string, airfield: Airfield | null, now: Dat
   const result = parseCodedLines(text, now)
   if (result.issues.length) throw profileIssuesError(result.issues, 'Some report lines could not be read')
   const station = airfield ? airfield.reportingStation ?? airfield.code : null
-  const warnings = station ? codedReportWarnings(result.reports, { station, now }) : []
+  const warnings = station ? codedReportWarnings(result.reports, { station, now, ...codedAgeLimits() }) : []
   // The validity the form proposes: a METAR's hour from its observation, or the first TAF's period.
   const first = result.reports[0]
   const validity = first?.periods[0]?.from && first.periods[0].to ? { validFrom: first.periods[0].from, validTo: first.periods[0].to } : null

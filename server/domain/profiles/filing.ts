@@ -10,7 +10,7 @@ import { evaluateAirfield } from '../alerts/evaluate'
 import type { FieldIssue } from '../../utils/errors'
 import { planSupersession, type Interval } from './supersession'
 import { parseCodedLines } from './import/coded'
-import { codedReportWarnings } from './coded-check'
+import { codedAgeLimits, codedReportWarnings } from './coded-check'
 
 /** Who files: a signed-in person, or a feed with an API token acting for the person who made the token. */
 export type FilingActor = { user: Pick<User, 'id' | 'email'>, token?: { id: number, name: string } | null }
@@ -149,7 +149,7 @@ function codedReportOf(airfield: Airfield, coded: { text: string, confirmWarning
   if (read.issues.length) {
     throw profileIssuesError(read.issues.map(i => ({ field: `codedReport.text`, line: i.line, message: i.message })), 'The reports could not be read')
   }
-  const warnings = codedReportWarnings(read.reports, { station: airfield.reportingStation ?? airfield.code, now })
+  const warnings = codedReportWarnings(read.reports, { station: airfield.reportingStation ?? airfield.code, now, ...codedAgeLimits() })
   if (warnings.length && !coded.confirmWarnings) {
     throw profileIssuesError(warnings.map(w => ({ field: 'codedReport.confirmWarnings', line: w.line, message: `${w.message} Confirm to file anyway.` })), 'The reports need confirming')
   }

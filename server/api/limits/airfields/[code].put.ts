@@ -1,6 +1,6 @@
 import { z } from 'zod'
 import { airfieldCodeParamSchema } from '#shared/utils/airfield-schema'
-import { limitChangeSchema } from '../../../domain/alerts/limit-sets'
+import { dryRunQuerySchema, limitChangeSchema } from '../../../domain/alerts/limit-sets'
 import { saveLimitSet } from '../../../domain/alerts/limit-change'
 import { loadAirfield } from '../../../domain/airfields/lookup'
 import { requireRunwayEnd } from '../../../domain/alerts/limit-views'
@@ -14,9 +14,10 @@ const bodySchema = limitChangeSchema.extend({
 export default defineApiHandler(async (event) => {
   const user = await requireCapability(event, 'manage-limits')
   const { code } = readParams(event, airfieldCodeParamSchema)
+  const { dryRun } = readQuery(event, dryRunQuerySchema)
   const body = await readBodyWith(event, bodySchema, 'The limits were not changed')
   const airfield = await loadAirfield(code)
   const designator = body.designator ?? null
   if (designator) await requireRunwayEnd(airfield, designator)
-  return saveLimitSet(useDB(), user, { airfieldId: airfield.id, designator }, body.values, body.reason)
+  return saveLimitSet(useDB(), user, { airfieldId: airfield.id, designator }, body.values, body.reason, { dryRun })
 })
