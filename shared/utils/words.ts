@@ -12,6 +12,7 @@ const WORDS = {
   deliveryState: { queued: 'Waiting to be sent', sent: 'Sent', failed: 'Failed' } as Record<string, string>,
   deliveryKind: { 'alert-raised': 'Alert raised', 'alert-cleared': 'Alert cleared', 'invitation': 'Invitation', 'password-reset': 'Password reset' } as Record<string, string>,
   channel: { email: 'E-mail', push: 'Web push' } as Record<string, string>,
+  userState: { active: 'Active', invited: 'Invited, has not set a password yet', disabled: 'Disabled' } as Record<string, string>,
   limitSource: { 'built-in default': 'built-in default', 'organisation': 'organisation', 'airfield': 'this airfield', 'runway end': 'this runway end' } as Record<string, string>,
 } as const
 
@@ -25,4 +26,11 @@ export function words(category: WordCategory, value: string | null | undefined):
 /** The known values of a category with their words, in the map's order (for filters and pickers). */
 export function wordOptions(category: WordCategory): { value: string, label: string }[] {
   return Object.entries(WORDS[category]).map(([value, label]) => ({ value, label }))
+}
+
+export type UserState = 'active' | 'invited' | 'disabled'
+
+/** A user's state in words (the Users page). */
+export function userStateWord(state: UserState): string {
+  return words('userState', state)
 }

@@ -43,6 +43,7 @@ const MATRIX: Record<string, Access & { fresh?: boolean }> = {
   'POST /api/alerts/inbox/acknowledge': ANY,
   'GET /api/audit': roles('admin', 'safety'),
   'GET /api/briefings': ANY,
+  'GET /api/invitations': roles('admin'),
   'POST /api/invitations': roles('admin'),
   'GET /api/invitations/[token]': PUBLIC,
   'POST /api/invitations/accept': PUBLIC,
@@ -78,6 +79,8 @@ const MATRIX: Record<string, Access & { fresh?: boolean }> = {
   'GET /api/users': roles('admin'),
   'POST /api/users': roles('admin'),
   'PATCH /api/users/[id]': roles('admin'),
+  'POST /api/users/[id]/invitation': roles('admin'),
+  'DELETE /api/users/[id]/invitation': roles('admin'),
   'POST /api/wind/coded': roles('dispatcher', 'admin'),
   // Any signed-in user previews (the entry form); a feed may too, with its token.
   'POST /api/wind/preview': { roles: 'any', token: true },

@@ -83,6 +83,7 @@ describe('limits and alerts in the browser', () => {
       await admin.waitForLoadState('networkidle')
       return mail.count()
     }, { timeout: 30_000, interval: 1000 }).toBeGreaterThan(mailsBefore)
+    await mail.first().locator('[data-test="mail-summary"]').click() // the mailbox list is collapsed
     expect(await mail.first().textContent()).toContain('Limit: 18 kt')
     await screenshot(admin, 'mailbox')
     await adminCtx.close()

@@ -67,11 +67,19 @@ describe('the Content-Security-Policy in the browser', () => {
     await page.fill('#mailbox-to', email)
     await page.press('#mailbox-to', 'Tab')
     const mail = page.locator('[data-test=mail]').first()
-    await expect.poll(() => mail.textContent(), { timeout: 10_000 }).toContain('reset')
+    await expect.poll(() => mail.textContent(), { timeout: 10_000 }).toMatch(/reset/i)
+    // The list is collapsed: open the message first.
+    await mail.locator('[data-test=mail-summary]').click()
     await mail.getByRole('button', { name: /HTML/ }).click()
     const frame = mail.locator('iframe')
-    // sandbox="" : no scripts, no same-origin access, no top navigation (HTML Living Standard, iframe sandbox).
-    expect(await frame.getAttribute('sandbox')).toBe('')
+    // Sandboxed: no scripts, no same-origin access, no top navigation; only popups (a link opens a new tab) are
+    // allowed (HTML Living Standard, iframe sandbox tokens).
+    const tokens = (await frame.getAttribute('sandbox'))!.split(/\s+/).filter(Boolean).sort()
+    expect(tokens).toEqual(['allow-popups', 'allow-popups-to-escape-sandbox'])
+    // Every link of the preview opens in a new tab, without a handle back to this page.
+    const link = page.frameLocator('[data-test=mail] iframe').first().locator('a').first()
+    expect(await link.getAttribute('target')).toBe('_blank')
+    expect(await link.getAttribute('rel')).toMatch(/noopener/)
     const body = page.frameLocator('[data-test=mail] iframe').first().locator('body')
     await expect.poll(() => body.textContent()).toMatch(/reset your Veerline password/)
     // The link is there, but its address is masked until an admin reveals it.

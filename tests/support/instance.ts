@@ -5,13 +5,16 @@ import { spawn, type ChildProcess } from 'node:child_process'
 import { expect } from 'vitest'
 import { ApiClient } from './api'
 
-export type SecondInstance = { client: ApiClient, stop: () => Promise<void> }
+export type SecondInstance = { client: ApiClient, stop: () => Promise<void>, output: () => string }
 
-/** Starts the second instance (its outbox worker off, so the first instance alone sends) and signs `email` in through it. */
-export async function startSecondInstance(email: string): Promise<SecondInstance> {
+/**
+ * Starts the second instance (its outbox worker off, so the first instance alone sends), waits for its /healthz, and
+ * signs `email` in through it. `env` adds settings for this start; `output()` is what the instance printed so far.
+ */
+export async function startSecondInstance(email: string, env: Record<string, string> = {}): Promise<SecondInstance> {
   const port2 = process.env.VEERLINE_PORT_2
   expect(port2, 'VEERLINE_PORT_2 is set by scripts/test.sh').toBeTruthy()
-  const i = await startInstance('second', undefined, { PORT: port2!, NITRO_PORT: port2!, VEERLINE_OUTBOX_WORKER: '0' })
+  const i = await startInstance('second', undefined, { PORT: port2!, NITRO_PORT: port2!, VEERLINE_OUTBOX_WORKER: '0', ...env })
   for (let n = 0; n < 100; n++) {
     try {
       if ((await fetch(`http://127.0.0.1:${port2}/healthz`)).ok) break
@@ -23,6 +26,7 @@ export async function startSecondInstance(email: string): Promise<SecondInstance
   await client.signIn(email)
   return {
     client,
+    output: () => i.log.join(''),
     stop: async () => {
       await stopInstance(i)
     },

@@ -1,20 +1,25 @@
 import { z } from 'zod'
-import { decimalIntSchema } from '#shared/utils/input-schemas'
+import { decimalIntSchema, pageSchema } from '#shared/utils/input-schemas'
 import { mailboxView } from '../../domain/standins/mailbox'
 
 const querySchema = z.object({
   to: z.string().trim().max(254).optional(),
+  q: z.string().trim().max(254).optional(),
   deliveryId: z.string().trim().max(64).optional(),
-  page: decimalIntSchema('page', 1, 100_000).default(1),
-  pageSize: decimalIntSchema('pageSize', 1, 1000).optional(),
-  limit: decimalIntSchema('limit', 1, 1000).default(200),
+  page: pageSchema,
+  pageSize: decimalIntSchema('pageSize', 1, 200).optional(),
+  limit: decimalIntSchema('limit', 1, 1000).optional(),
   reveal: z.enum(['0', '1', 'true', 'false']).optional(),
 })
 
-// The messages the local SMTP stand-in received, newest first, a page at a time (`pageSize`, or `limit`). Admins
-// only, and only where the stand-ins run.
+// The messages the local SMTP stand-in received, newest first, a page at a time. Admins only, and only where the
+// stand-ins run. `to` is one exact recipient, `q` a part of a recipient's address, `deliveryId` the copies of one
+// delivery; `limit` is the older name of pageSize.
 export default defineApiHandler(async (event) => {
   const admin = await requireCapability(event, 'read-mailbox')
   const query = readQuery(event, querySchema)
-  return mailboxView(admin, { to: query.to, deliveryId: query.deliveryId, page: query.page, limit: query.pageSize ?? query.limit, reveal: query.reveal === '1' || query.reveal === 'true' })
+  return mailboxView(admin, {
+    to: query.to, q: query.q, deliveryId: query.deliveryId, page: query.page, pageSize: query.pageSize ?? query.limit ?? 50,
+    reveal: query.reveal === '1' || query.reveal === 'true',
+  })
 })

@@ -59,19 +59,24 @@ export async function* linesBackward(file: string, blockBytes = 256 * 1024): Asy
   }
 }
 
-export interface MailboxPage { messages: MailboxMessage[], total: number, page: number, pageSize: number }
+export interface MailboxPage { messages: MailboxMessage[], total: number, page: number, pageSize: number, pages: number }
 
-/** One page of the mailbox, newest first, optionally only what was sent to `to` (an envelope recipient). */
-export async function readMailboxPage(opts: { to?: string, page?: number, pageSize?: number, deliveryId?: string } = {}): Promise<MailboxPage> {
+/**
+ * One page of the mailbox, newest first: `to` picks one exact envelope recipient, `q` any recipient (envelope or
+ * header) whose address contains it (both ignore case), `deliveryId` the copies of one delivery.
+ */
+export async function readMailboxPage(opts: { to?: string, q?: string, page?: number, pageSize?: number, deliveryId?: string } = {}): Promise<MailboxPage> {
   const page = Math.max(1, opts.page ?? 1)
   const pageSize = Math.max(1, opts.pageSize ?? 50)
-  const to = opts.to?.toLowerCase()
+  const to = opts.to?.toLowerCase() || undefined
+  const q = opts.q?.toLowerCase() || undefined
   const skip = (page - 1) * pageSize
   const messages: MailboxMessage[] = []
   let total = 0
   for await (const line of linesBackward(mailboxFile())) {
     // A cheap text test first: most lines of a long run are not the ones asked for and are never parsed.
     if (to && !line.toLowerCase().includes(to)) continue
+    if (q && !line.toLowerCase().includes(q)) continue
     if (opts.deliveryId && !line.includes(opts.deliveryId)) continue
     let m: MailboxMessage
     try {
@@ -81,26 +86,29 @@ export async function readMailboxPage(opts: { to?: string, page?: number, pageSi
       continue
     }
     if (to && !m.envelopeTo.some(t => t.toLowerCase() === to)) continue
+    if (q && ![...m.envelopeTo, m.to].some(t => t.toLowerCase().includes(q))) continue
     if (opts.deliveryId && m.deliveryId !== opts.deliveryId) continue
     total++
     if (total > skip && messages.length < pageSize) messages.push(m)
   }
-  return { messages, total, page, pageSize }
+  return { messages, total, page, pageSize, pages: Math.max(1, Math.ceil(total / pageSize)) }
 }
 
 /**
- * The messages the SMTP stand-in received, newest first, only where the stand-ins run (never in production).
+ * The messages the SMTP stand-in received, newest first, one page at a time, only where the stand-ins run (never in
+ * production). `to` picks one exact recipient, `q` any recipient whose address contains it (both ignore case).
  * Invitation and reset links are masked unless the admin asks to reveal them, which is recorded in the audit.
  */
-export async function mailboxView(admin: User, query: { to?: string, limit: number, reveal: boolean, page?: number, deliveryId?: string }) {
+export async function mailboxView(admin: User, query: { to?: string, q?: string, deliveryId?: string, page: number, pageSize: number, reveal: boolean }) {
   if (!standinsEnabled()) throw notFound('There is no mailbox stand-in in production')
-  const { messages, total, page, pageSize } = await readMailboxPage({ to: query.to, page: query.page, pageSize: query.limit, deliveryId: query.deliveryId })
-  if (query.reveal) await recordAudit(useDB(), { user: admin }, 'mailbox.reveal-links', 'mailbox', 'stand-in', { to: query.to?.toLowerCase() ?? null, count: messages.length })
+  const { messages, total, page, pageSize, pages } = await readMailboxPage({ to: query.to, q: query.q, page: query.page, pageSize: query.pageSize, deliveryId: query.deliveryId })
+  if (query.reveal) await recordAudit(useDB(), { user: admin }, 'mailbox.reveal-links', 'mailbox', 'stand-in', { to: query.to?.toLowerCase() ?? null, q: query.q?.toLowerCase() ?? null, count: messages.length })
   return {
     messages: query.reveal ? messages : messages.map(m => ({ ...m, text: maskTokenLinks(m.text), html: m.html === null ? null : maskTokenLinks(m.html) })),
     total,
     page,
     pageSize,
+    pages,
     revealed: query.reveal,
   }
 }
