@@ -96,6 +96,8 @@ describe('the alert log from the safety office', () => {
       expect(await row.textContent()).toContain('Failed')
       // Who it was for in words (the device the push service no longer knows was removed with the failure).
       expect(await row.textContent()).toContain(`${lostName} (device no longer registered)`)
+      // And what a retry can and cannot do for a device that is gone.
+      expect(await row.locator('[data-test=log-device-gone]').isVisible()).toBe(true)
       const retry = row.getByRole('button', { name: /retry/i })
       const rbox = await retry.boundingBox()
       expect(rbox, 'the Retry button is on screen').not.toBeNull()

@@ -24,7 +24,7 @@ describe('limits and alerts in the browser', () => {
     expect(filed.status).toBe(201)
     // The stand-in's mailbox outlives test runs: count what is already there for this code.
     const adminApi = await signedIn('admin')
-    const mailsBefore = (await adminApi.get('/api/mailbox?to=pilot@veerline.example&pageSize=500')).body.messages
+    const mailsBefore = (await adminApi.get('/api/mailbox?to=pilot@veerline.example&limit=1000')).body.messages
       .filter((m: { subject: string }) => m.subject.includes(`${code} runway 18`)).length
     const before = (await pilotApi.get('/api/alerts/inbox')).body.items.filter((i: { airfieldCode: string }) => i.airfieldCode === code)
     expect(before).toHaveLength(0)

@@ -74,7 +74,7 @@ export function windProfile(dirDeg: number, speedKt: number, hours = 3) {
 }
 
 export async function mailTo(admin: ApiClient, email: string) {
-  const res = await admin.get(`/api/mailbox?to=${encodeURIComponent(email)}&reveal=1&pageSize=500`)
+  const res = await admin.get(`/api/mailbox?to=${encodeURIComponent(email)}&reveal=1&limit=1000`)
   return res.body.messages as { subject: string, text: string, html: string | null, deliveryId: string | null }[]
 }
 
