@@ -21,6 +21,21 @@ export default withNuxt({
     ] }],
   },
 }, {
+  // Galera rules (DEVELOPERS.md, "Transactions and Galera"): every transaction goes through transaction() of
+  // server/utils/db.ts, which retries certification conflicts (1213) and lock wait timeouts (1205); and no GET_LOCK,
+  // which is local to one node.
+  files: ['server/**/*.ts', 'scripts/**/*.ts'],
+  ignores: ['server/utils/db.ts'],
+  rules: {
+    'no-restricted-syntax': ['error', {
+      selector: 'CallExpression[callee.type=\'MemberExpression\'][callee.property.name=\'transaction\']',
+      message: 'Open transactions with transaction(work) from server/utils/db.ts: it retries 1213 (Galera certification conflicts) and 1205.',
+    }, {
+      selector: 'Literal[value=/GET_LOCK|RELEASE_LOCK/i], TemplateElement[value.raw=/GET_LOCK|RELEASE_LOCK/i]',
+      message: 'GET_LOCK is local to one Galera node: take turns through a row that certification decides (see scripts/db-setup.ts).',
+    }],
+  },
+}, {
   // Tests read loosely typed JSON answers from the real server.
   files: ['tests/**'],
   rules: { '@typescript-eslint/no-explicit-any': 'off' },

@@ -4,9 +4,9 @@
  * key: a profile of the same airfield, validity and source already there (filed, superseded or withdrawn) is left
  * alone, so a restart, a second instance or the next check of the day files nothing twice. Demo only.
  */
-import { and, eq } from 'drizzle-orm'
+import { and, eq, sql } from 'drizzle-orm'
 import * as schema from '../db/schema'
-import type { DB } from '../utils/db'
+import { transaction, type DB } from '../utils/db'
 import { fileProfile } from '../domain/profiles/filing'
 import { DEMO_AIRFIELDS, demoDayStart } from './demo-airfields'
 
@@ -42,9 +42,14 @@ export async function fileDemoDay(db: DB, dayStart: Date): Promise<DemoDayResult
       const validFrom = new Date(dayStart.getTime() + slot.hourZ * 3600_000)
       const validTo = new Date(validFrom.getTime() + 3 * 3600_000)
       try {
-        const filed = await db.transaction(async (tx) => {
-          // The airfield row is the lock: a second instance waits here, then finds the profile and leaves it.
-          const [airfield] = await tx.select().from(schema.airfields).where(eq(schema.airfields.code, a.code)).for('update')
+        const filed = await transaction(async (tx) => {
+          // A write to this slot's marker row is the lock: a second instance on the same database node waits here,
+          // one on another Galera node conflicts at COMMIT and runs again; either then finds the profile and leaves it.
+          // (A row lock alone is local to one node.)
+          const marker = `demo:${a.code}:${validFrom.toISOString()}:${slot.source}`.slice(0, 64)
+          await tx.insert(schema.appMeta).values({ key: marker, value: result.day })
+            .onDuplicateKeyUpdate({ set: { updatedAt: sql`CURRENT_TIMESTAMP(3)` } })
+          const [airfield] = await tx.select().from(schema.airfields).where(eq(schema.airfields.code, a.code))
           if (!airfield) throw new Error(`the demo airfield ${a.code} does not exist`)
           const p = schema.profiles
           const [present] = await tx.select({ id: p.id }).from(p).where(and(eq(p.airfieldId, airfield.id), eq(p.validFrom, validFrom),
@@ -59,7 +64,7 @@ export async function fileDemoDay(db: DB, dayStart: Date): Promise<DemoDayResult
             details: { demo: true, demoDay: result.day },
           })
           return true
-        })
+        }, { db })
         if (filed) result.filed++
         else result.present++
       }

@@ -1,6 +1,7 @@
 import { eq } from 'drizzle-orm'
 import type { MySql2Database } from 'drizzle-orm/mysql2'
 import * as schema from '../db/schema'
+import { transaction, type DB } from '../utils/db'
 import { seedUsers } from './users'
 import { seedDemoAirfields } from './demo-airfields'
 import { seedDemoAlerts } from './demo-alerts'
@@ -21,10 +22,10 @@ export async function seedDemo(db: SeedDB): Promise<string[]> {
     const key = `seed:${part.name}`
     const done = await db.select().from(schema.appMeta).where(eq(schema.appMeta.key, key))
     if (done.length) continue
-    await db.transaction(async (tx) => {
+    await transaction(async (tx) => {
       await part.run(tx as unknown as SeedDB)
       await tx.insert(schema.appMeta).values({ key, value: new Date().toISOString() })
-    })
+    }, { db: db as unknown as DB })
     ran.push(part.name)
   }
   return ran

@@ -1,6 +1,6 @@
 import { z } from 'zod'
 import { newPasswordSchema } from '../../../shared/utils/schemas'
-import { eq, schema, useDB } from '../../utils/db'
+import { eq, schema, transaction } from '../../utils/db'
 import { recordAudit } from '../../utils/audit'
 import { gone } from '../../utils/errors'
 import { findLiveToken, type TokenPurpose } from './tokens'
@@ -11,7 +11,7 @@ export const acceptTokenSchema = z.object({ token: z.string({ required_error: 't
 /** Sets the password from a single-use token; answers the user, whom the route then signs in. */
 export async function acceptToken(purpose: TokenPurpose, body: z.infer<typeof acceptTokenSchema>) {
   const passwordHash = await hashPassword(body.password)
-  const user = await useDB().transaction(async (tx) => {
+  const user = await transaction(async (tx) => {
     const row = await findLiveToken(tx, purpose, body.token, true)
     if (!row || row.user.disabled) throw gone('This link is not valid any more (used, expired or unknown); ask for a new one')
     await tx.update(schema.userTokens).set({ usedAt: new Date() }).where(eq(schema.userTokens.id, row.token.id))

@@ -1,6 +1,6 @@
 import { createHash, randomBytes } from 'node:crypto'
 import type { User } from '../../db/schema'
-import { and, desc, eq, isNull, schema, useDB } from '../../utils/db'
+import { and, desc, eq, isNull, schema, transaction, useDB } from '../../utils/db'
 import { recordAudit } from '../../utils/audit'
 import { notFound } from '../../utils/errors'
 
@@ -33,7 +33,7 @@ export async function listApiTokens(user: User) {
 /** Makes an API token for a feed. The answer carries the token once; only its SHA-256 is stored. */
 export async function createApiToken(user: User, name: string) {
   const { token, tokenHash, tokenPrefix } = newApiToken()
-  const id = await useDB().transaction(async (tx) => {
+  const id = await transaction(async (tx) => {
     const [row] = await tx.insert(schema.apiTokens).values({ name, tokenHash, tokenPrefix, createdByUserId: user.id }).$returningId()
     await recordAudit(tx, { user }, 'api-token.create', 'api-token', row!.id, { name, tokenPrefix })
     return row!.id
@@ -44,7 +44,7 @@ export async function createApiToken(user: User, name: string) {
 /** Revokes a token for good (the row stays, marked). A dispatcher revokes their own; an admin any. */
 export async function revokeApiToken(user: User, id: number) {
   const t = schema.apiTokens
-  const revoked = await useDB().transaction(async (tx) => {
+  const revoked = await transaction(async (tx) => {
     const scope = and(eq(t.id, id), isNull(t.revokedAt), user.role === 'admin' ? undefined : eq(t.createdByUserId, user.id))
     const [row] = await tx.select().from(t).where(scope).for('update')
     if (!row) return null

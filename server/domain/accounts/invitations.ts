@@ -1,6 +1,6 @@
 import type { User } from '../../db/schema'
 import { alias } from 'drizzle-orm/mysql-core'
-import { and, desc, eq, isNull, schema, useDB } from '../../utils/db'
+import { and, desc, eq, isNull, schema, transaction, useDB } from '../../utils/db'
 import type { Tx } from '../../utils/db'
 import { recordAudit } from '../../utils/audit'
 import { conflict, gone, notFound } from '../../utils/errors'
@@ -14,7 +14,7 @@ export type InvitationInput = { email: string, name: string, role: User['role'] 
  */
 export async function inviteUser(admin: User, input: InvitationInput, appUrl: string) {
   const { email, name, role } = input
-  const result = await useDB().transaction(async (tx) => {
+  const result = await transaction(async (tx) => {
     const [existing] = await tx.select().from(schema.users).where(eq(schema.users.email, email)).for('update')
     if (existing?.passwordHash) throw conflict(`${email} already has an account`, [{ field: 'email', message: 'already has an account' }])
     let id = existing?.id
@@ -79,7 +79,7 @@ async function pendingInvitee(tx: Tx, userId: number) {
 
 /** Sends a new link; the earlier one stops working at once (issueToken marks it used). */
 export async function resendInvitation(admin: User, userId: number, appUrl: string) {
-  const { user, expiresAt } = await useDB().transaction(async (tx) => {
+  const { user, expiresAt } = await transaction(async (tx) => {
     const user = await pendingInvitee(tx, userId)
     const { expiresAt } = await issueToken(tx, 'invitation', user, appUrl, admin)
     await recordAudit(tx, { user: admin }, 'invitation.resend', 'user', user.id, { email: user.email, expiresAt: expiresAt.toISOString() })
@@ -90,7 +90,7 @@ export async function resendInvitation(admin: User, userId: number, appUrl: stri
 
 /** Withdraws the invitation: its link stops working and the account stays disabled (inviting again enables it). */
 export async function revokeInvitation(admin: User, userId: number) {
-  const user = await useDB().transaction(async (tx) => {
+  const user = await transaction(async (tx) => {
     const user = await pendingInvitee(tx, userId)
     await tx.update(schema.userTokens).set({ usedAt: new Date() })
       .where(and(eq(schema.userTokens.userId, userId), eq(schema.userTokens.purpose, 'invitation'), isNull(schema.userTokens.usedAt)))

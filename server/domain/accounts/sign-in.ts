@@ -1,5 +1,5 @@
 import type { User } from '../../db/schema'
-import { and, eq, gte, schema, sql, useDB } from '../../utils/db'
+import { and, eq, gte, schema, sql, transaction, useDB } from '../../utils/db'
 import { recordAudit } from '../../utils/audit'
 import { unauthorised } from '../../utils/errors'
 import { credentialsMatch } from './credentials'
@@ -35,7 +35,7 @@ const RESET_MAX_PER_WINDOW = 3
  * tells whether the address has an account. Each request for an account is audited, with whether a link went out.
  */
 export async function requestPasswordReset(email: string, appUrl: string) {
-  await useDB().transaction(async (tx) => {
+  await transaction(async (tx) => {
     const [user] = await tx.select().from(schema.users).where(eq(schema.users.email, email)).for('update')
     const t = schema.userTokens
     const [recent] = await tx.select({ n: sql<number>`COUNT(*)` }).from(t)

@@ -1,7 +1,7 @@
 import type { z } from 'zod'
 import type { createUserSchema, updateUserSchema } from '../../../shared/utils/schemas'
 import type { User } from '../../db/schema'
-import { eq, schema, sql, useDB } from '../../utils/db'
+import { eq, schema, sql, transaction, useDB } from '../../utils/db'
 import { recordAudit } from '../../utils/audit'
 import { conflict, notFound } from '../../utils/errors'
 import { endUserSessions } from './session-store'
@@ -28,7 +28,7 @@ export async function createUser(admin: User, input: z.infer<typeof createUserSc
   const [existing] = await useDB().select({ id: schema.users.id }).from(schema.users).where(eq(schema.users.email, email))
   if (existing) throw emailTaken(email)
   const passwordHash = await hashPassword(password)
-  const id = await useDB().transaction(async (tx) => {
+  const id = await transaction(async (tx) => {
     const [row] = await tx.insert(schema.users).values({ email, name, role, passwordHash }).$returningId()
     await recordAudit(tx, { user: admin }, 'user.create', 'user', row!.id, { email, role })
     return row!.id
@@ -44,7 +44,7 @@ export async function updateUser(admin: User, id: number, change: z.infer<typeof
   if (id === admin.id && (change.disabled || (change.role && change.role !== 'admin'))) {
     throw conflict('You cannot disable yourself or remove your own admin role')
   }
-  const user = await useDB().transaction(async (tx) => {
+  const user = await transaction(async (tx) => {
     const [before] = await tx.select().from(schema.users).where(eq(schema.users.id, id)).for('update')
     if (!before) return null
     await tx.update(schema.users).set({ ...change, updatedAt: new Date() }).where(eq(schema.users.id, id))

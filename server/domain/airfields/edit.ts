@@ -3,7 +3,7 @@ import type { airfieldCreateSchema, airfieldUpdateSchema, RunwayInput } from '..
 import { M_PER_FT } from '../../../shared/units'
 import { thresholdDistanceM } from '../../../shared/wind'
 import type { Airfield, User } from '../../db/schema'
-import { and, asc, eq, schema, useDB } from '../../utils/db'
+import { and, asc, eq, schema, transaction } from '../../utils/db'
 import { recordAudit } from '../../utils/audit'
 import { conflict, invalid, notFound } from '../../utils/errors'
 import { isDuplicateKeyError } from '../../utils/idempotency'
@@ -33,7 +33,7 @@ export async function createAirfield(user: User, input: z.infer<typeof airfieldC
   }
   const duplicate = () => conflict(`An airfield with the code ${values.code} already exists`, [{ field: 'code', message: 'already in use' }])
   if (await findAirfield(values.code)) throw duplicate()
-  return useDB().transaction(async (tx) => {
+  return transaction(async (tx) => {
     const [row] = await tx.insert(schema.airfields).values(values).$returningId()
     await recordAudit(tx, { user }, 'airfield.create', 'airfield', row!.id, { code: values.code, name: values.name })
     const [a] = await tx.select().from(schema.airfields).where(eq(schema.airfields.id, row!.id))
@@ -50,7 +50,7 @@ export async function updateAirfield(user: User, code: string, input: z.infer<ty
   const change: Record<string, unknown> = { ...rest }
   if (elevation !== undefined) change.elevationM = elevationMOf(elevation, rest.elevationUnit)
   if (rest.magVarOverrideDeg === null) change.magVarOverrideReason = null
-  const airfield = await useDB().transaction(async (tx) => {
+  const airfield = await transaction(async (tx) => {
     const [before] = await tx.select().from(schema.airfields).where(eq(schema.airfields.code, code)).for('update')
     if (!before) return null
     if (change.magVarOverrideDeg != null && !(change.magVarOverrideReason ?? before.magVarOverrideReason)) {
@@ -76,7 +76,7 @@ const endTaken = (airfield: Airfield, ends: { designator: string }[]) => conflic
 /** Adds a runway with both its ends; answers the new runway and the airfield as it now stands. */
 export async function addRunway(user: User, airfield: Airfield, input: RunwayInput) {
   const ends = runwayEndValues(airfield, input)
-  const runwayId = await useDB().transaction(async (tx) => {
+  const runwayId = await transaction(async (tx) => {
     const [row] = await tx.insert(schema.runways).values({ airfieldId: airfield.id, lengthM: lengthOf(input) }).$returningId()
     await tx.insert(schema.runwayEnds).values(ends.map(e => ({ ...e, runwayId: row!.id })))
     await recordAudit(tx, { user }, 'runway.create', 'runway', row!.id, {
@@ -95,7 +95,7 @@ export async function addRunway(user: User, airfield: Airfield, input: RunwayInp
 export async function replaceRunway(user: User, airfield: Airfield, runwayId: number, input: RunwayInput) {
   const ends = runwayEndValues(airfield, input)
   const id = runwayId
-  const found = await useDB().transaction(async (tx) => {
+  const found = await transaction(async (tx) => {
     const [runway] = await tx.select().from(schema.runways)
       .where(and(eq(schema.runways.id, id), eq(schema.runways.airfieldId, airfield.id))).for('update')
     if (!runway) return false

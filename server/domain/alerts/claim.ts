@@ -13,7 +13,7 @@
 // second to commit gets a certification conflict (error 1213) at COMMIT. The claim token is written and committed
 // before anything is sent, so the loser has sent nothing: it drops the claim and moves on.
 import { randomUUID } from 'node:crypto'
-import { inArray, schema, sql } from '../../utils/db'
+import { inArray, schema, sql, transaction } from '../../utils/db'
 import type { DB } from '../../utils/db'
 import { OUTBOX_RETRY_LANE, type OutboxRow } from '../../db/schema'
 
@@ -34,7 +34,8 @@ export async function claimDue(db: DB, instanceId: string, opts: { batchSize: nu
   const token = randomUUID()
   const ids: number[] = []
   try {
-    await db.transaction(async (tx) => {
+    // attempts: 1: a lost race claims nothing this round (the next round claims again); `ids` is filled as it goes.
+    await transaction(async (tx) => {
       for (const priority of PRIORITIES) {
         for (const lane of ['fresh', 'retry'] as const) {
           const want = opts.batchSize - ids.length
@@ -62,7 +63,7 @@ export async function claimDue(db: DB, instanceId: string, opts: { batchSize: nu
         WHERE id IN (${idList})`)
       await tx.execute(sql`INSERT INTO outbox_attempts (outbox_id, attempt, claim_token, instance)
         SELECT id, attempts, claim_token, claimed_by FROM outbox WHERE id IN (${idList})`)
-    }, { isolationLevel: 'read committed' })
+    }, { db, attempts: 1, isolationLevel: 'read committed' })
   }
   catch (err) {
     if (isClaimConflict(err)) return { token, rows: [] }
@@ -103,7 +104,8 @@ export async function recordOutcomes(db: DB, outcomes: Outcome[]) {
     g.ids.push(r.row.id)
     groups.set(key, g)
   }
-  await db.transaction(async (tx) => {
+  // Safe to repeat (every update is keyed by its claim token): transaction() retries a conflict.
+  await transaction(async (tx) => {
     for (const g of groups.values()) {
       const idList = sql.join(g.ids.map(id => sql`${id}`), sql`, `)
       const where = sql`id IN (${idList}) AND claim_token = ${g.token}`
@@ -133,5 +135,5 @@ export async function recordOutcomes(db: DB, outcomes: Outcome[]) {
       await tx.execute(sql`UPDATE outbox_attempts SET outcome = 'error', finished_at = NOW(3), error = ${r.error.slice(0, 1000)}
         WHERE outbox_id = ${r.row.id} AND claim_token = ${r.token}`)
     }
-  }, { isolationLevel: 'read committed' })
+  }, { db, isolationLevel: 'read committed' })
 }

@@ -1,7 +1,7 @@
 // Saving a limit set: upsert the set, keep the change (who, when, why, old and new values), audit it and
 // re-evaluate the affected airfields, all in one transaction. A dry run does all of it and rolls it back, so the
 // effect it answers is the one the real change makes.
-import { and, eq, gt, inArray, schema, sql } from '../../utils/db'
+import { and, eq, gt, inArray, schema, sql, transaction } from '../../utils/db'
 import type { DB, Tx } from '../../utils/db'
 import type { User } from '../../db/schema'
 import { recordAudit } from '../../utils/audit'
@@ -50,7 +50,7 @@ async function effectOf(tx: Tx, summaries: EvaluationSummary[]): Promise<LimitEf
 export async function saveLimitSet(db: DB, user: User, target: { airfieldId: number | null, designator: string | null },
   values: Partial<PartialLimits>, reason: string, options: { dryRun?: boolean } = {}) {
   const scopeKey = scopeKeyOf(target.airfieldId, target.designator)
-  const run = () => db.transaction(async (tx) => {
+  const run = () => transaction(async (tx) => {
     const t = schema.thresholdSets
     const [before] = await tx.select().from(t).where(eq(t.scopeKey, scopeKey)).for('update')
     const oldValues = valuesOf(before)
@@ -86,7 +86,7 @@ export async function saveLimitSet(db: DB, user: User, target: { airfieldId: num
     }
     if (options.dryRun) throw new DryRunRollback(result)
     return result
-  })
+  }, { db })
   try {
     return await run()
   }

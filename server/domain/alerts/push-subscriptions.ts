@@ -1,5 +1,5 @@
 import type { User } from '../../db/schema'
-import { and, asc, eq, schema, useDB } from '../../utils/db'
+import { and, asc, eq, schema, transaction, useDB } from '../../utils/db'
 import { conflict, notFound, unavailable } from '../../utils/errors'
 import { isDuplicateKeyError } from '../../utils/idempotency'
 import { pushStandinUrl } from '../standins/push-device'
@@ -18,7 +18,7 @@ export async function registerPushSubscription(user: User, input: PushSubscripti
   const p = schema.pushSubscriptions
   const { endpoint, keys, label } = input
   const values = { p256dh: keys.p256dh, auth: keys.auth, label: label || 'Browser' }
-  const row = await useDB().transaction(async (tx) => {
+  const row = await transaction(async (tx) => {
     const [existing] = await tx.select().from(p).where(eq(p.endpoint, endpoint)).for('update')
     if (existing && existing.userId !== user.id) throw taken()
     if (existing) {

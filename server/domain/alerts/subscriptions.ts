@@ -1,5 +1,5 @@
 import type { Airfield } from '../../db/schema'
-import { and, eq, schema, sql, useDB } from '../../utils/db'
+import { and, eq, schema, sql, transaction, useDB } from '../../utils/db'
 import { notFound } from '../../utils/errors'
 import { alertNoticeData } from './outbox'
 import { alertTitle } from './messages'
@@ -23,7 +23,7 @@ export async function subscriptionsOf(userId: number) {
  * put there at once, each once: an alert already in the follower's inbox is not added again.
  */
 export async function follow(userId: number, airfield: Airfield, channels: Channels) {
-  const delivered = await useDB().transaction(async (tx) => {
+  const delivered = await transaction(async (tx) => {
     await tx.insert(schema.alertSubscriptions).values({ userId, airfieldId: airfield.id, ...channels })
       .onDuplicateKeyUpdate({ set: channels })
     const a = schema.alerts

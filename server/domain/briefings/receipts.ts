@@ -1,5 +1,5 @@
 import type { User } from '../../db/schema'
-import { and, desc, eq, schema, sql, useDB } from '../../utils/db'
+import { and, desc, eq, schema, sql, transaction, useDB } from '../../utils/db'
 import { recordAudit } from '../../utils/audit'
 import { notFound } from '../../utils/errors'
 
@@ -70,7 +70,7 @@ function supersededNowOf(text: string | null): { byId: number, from: Date, to: D
 
 /** A pilot marks the briefing of one profile version as read; marking it again changes nothing (created: false). */
 export async function recordReceipt(user: User, profileId: number) {
-  const created = await useDB().transaction(async (tx) => {
+  const created = await transaction(async (tx) => {
     const [profile] = await tx.select().from(schema.profiles).where(eq(schema.profiles.id, profileId))
     if (!profile) throw notFound(`No profile with id ${profileId}`)
     const [existing] = await tx.select().from(schema.briefingReceipts)

@@ -1,7 +1,7 @@
 import type { z } from 'zod'
 import type { profileListQuerySchema } from '../../../shared/utils/profile-schema'
 import type { Airfield, User } from '../../db/schema'
-import { and, asc, desc, eq, gt, lt, schema, sql, useDB } from '../../utils/db'
+import { and, asc, desc, eq, gt, lt, schema, sql, transaction, useDB } from '../../utils/db'
 import type { DB, Tx } from '../../utils/db'
 import { recordAudit } from '../../utils/audit'
 import { conflict, notFound } from '../../utils/errors'
@@ -33,7 +33,7 @@ export async function readProfile(id: number) {
 /** Withdraws an active profile with a reason (it stays, marked); the airfield is evaluated once in the same transaction. */
 export async function withdrawProfile(user: User, id: number, reason: string) {
   const p = schema.profiles
-  return useDB().transaction(async (tx) => {
+  return transaction(async (tx) => {
     const [row] = await tx.select().from(p).where(eq(p.id, id)).for('update')
     if (!row) throw notFound(`No profile ${id}`)
     if (row.status !== 'active') throw conflict(`Profile ${id} is ${row.status}; only an active profile can be withdrawn`)

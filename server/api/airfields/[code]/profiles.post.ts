@@ -15,7 +15,7 @@ export default defineApiHandler(async (event) => {
   const airfield = await loadAirfield(code)
   const claim = idempotencyClaim(event, actor, raw)
   return onceForKey(event, claim, async () => {
-    const answer = await useDB().transaction(async (tx) => {
+    const answer = await transaction(async (tx) => {
       const filed = await fileProfile(tx, { airfield, input: value, actor, entryMethod: actor.token ? 'api' : query.entry })
       if (claim) await storeAnswer(tx, claim, 201, filed)
       return filed

@@ -47,7 +47,7 @@ export default defineApiHandler(async (event) => {
   const claim = idempotencyClaim(event, actor, text)
   if (parsed.issues.length) throw profileIssuesError(inFileWords(parsed.issues, format, lineOf), `The file was not filed, nothing was saved`)
   return onceForKey(event, claim, async () => {
-    const filed = await useDB().transaction(async (tx) => {
+    const filed = await transaction(async (tx) => {
       const answer = await fileProfile(tx, {
         airfield, input, actor, entryMethod: actor.token ? 'api' : 'file', lineOf, details: { format, fileName: fileName ?? null },
       })

@@ -18,7 +18,7 @@ export default defineApiHandler(async (event) => {
   const { code } = readParams(event, airfieldCodeParamSchema)
   const body = await readBodyWith(event, bodySchema)
   const airfield = await loadAirfield(code)
-  const answer = await useDB().transaction(tx => fileCodedPeriods(tx, { airfield, ...body, actor }))
+  const answer = await transaction(tx => fileCodedPeriods(tx, { airfield, ...body, actor }))
   setResponseStatus(event, 201)
   return answer
 })
