@@ -46,7 +46,8 @@ fi
 HOST=127.0.0.1 PORT=$BARE_PORT NITRO_HOST=127.0.0.1 NITRO_PORT=$BARE_PORT \
   node "$VEERLINE_DATA_DIR/bare/.output/server/index.mjs" >"$VEERLINE_DATA_DIR/bare.log" 2>&1 &
 BARE_PID=$!
-app_serve "$BENCH_PORT" "$VEERLINE_DATA_DIR/server.log"
+# VEERLINE_BENCH_NODE_ARGS (e.g. "--cpu-prof --cpu-prof-dir=/tmp/prof") go to the app server's node only.
+VEERLINE_NODE_ARGS="${VEERLINE_BENCH_NODE_ARGS:-}" app_serve "$BENCH_PORT" "$VEERLINE_DATA_DIR/server.log"
 
 VEERLINE_BENCH_URL="http://127.0.0.1:$BENCH_PORT" VEERLINE_BENCH_BARE_URL="http://127.0.0.1:$BARE_PORT" \
   node_modules/.bin/tsx bench/http/run.ts

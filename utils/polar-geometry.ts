@@ -7,6 +7,15 @@ export function polarXY(bearingDeg: number, r: number, cx: number, cy: number) {
   return { x: cx + r * Math.sin(a), y: cy - r * Math.cos(a) }
 }
 
+/**
+ * A linear map from [d0, d1] to [r0, r1] (what d3-scale's scaleLinear does for these displays, without pulling its
+ * interpolators, colours and number formats into the page's first load).
+ */
+export function linearScale(d0: number, d1: number, r0: number, r1: number): (x: number) => number {
+  const k = d1 === d0 ? 0 : (r1 - r0) / (d1 - d0)
+  return (x: number) => r0 + (x - d0) * k
+}
+
 /** Speed rings: nice round values (d3 ticks) from above zero up to at least `maxSpeed`, at least one ring. */
 export function ringSpeeds(maxSpeed: number): number[] {
   const top = Math.max(maxSpeed, 5)

@@ -1,5 +1,6 @@
 import { line } from 'd3-shape'
-import { scaleLinear, scaleUtc } from 'd3-scale'
+import { nice, ticks } from 'd3-array'
+import { linearScale } from './polar-geometry'
 
 // Geometry of one panel of the day's trend chart, in the SVG's own pixels (no framework inside).
 
@@ -46,17 +47,23 @@ export function trendPanel(input: TrendPanelInput) {
   const { widthPx, heightPx } = input
   const narrow = widthPx < 600
   const plot = { left: 34, right: widthPx - (narrow ? 8 : 12), top: 16, bottom: heightPx - 22 }
-  const x = scaleUtc()
-    .domain([new Date(`${input.date}T00:00:00Z`), new Date(`${input.date}T24:00:00Z`)])
-    .range([plot.left, plot.right])
+  // Linear maps and round ticks from d3-array: d3-scale would bring its interpolators, colours and time formats
+  // into the briefing page's first load for what these lines do (checked against d3-scale in the unit tests).
+  const dayStartMs = Date.parse(`${input.date}T00:00:00Z`)
+  const toX = linearScale(dayStartMs, dayStartMs + 24 * 3600_000, plot.left, plot.right)
+  const x = (t: Date) => toX(t.getTime())
   const finite = (v: number | null | undefined): v is number => v != null && Number.isFinite(v)
   const limitValues = input.limits.map(l => l.value).filter(finite)
   const dataValues = input.lines.flatMap(l => l.values).filter(finite)
   // The axis fits every line and every limit with room for a label above the highest.
   const top = Math.max(1, ...dataValues, ...limitValues) * 1.12
-  const y = scaleLinear().domain([0, top]).range([plot.bottom, plot.top]).nice()
-  const xTicks = x.ticks(narrow ? 4 : 8).map(t => ({ x: x(t), label: `${t.toISOString().slice(11, 13)}Z` }))
-  const yTicks = y.ticks(4).map(v => ({ value: v, y: y(v) }))
+  const yTop = nice(0, top, 10)[1]
+  const y = linearScale(0, yTop, plot.bottom, plot.top)
+  // Every 3 hours on a desk, every 6 on a phone (the UTC hours d3's time scale picks for 8 and 4 ticks a day).
+  const stepH = narrow ? 6 : 3
+  const xTicks = Array.from({ length: 24 / stepH + 1 }, (_, k) => new Date(dayStartMs + k * stepH * 3600_000))
+    .map(t => ({ x: x(t), label: `${t.toISOString().slice(11, 13)}Z` }))
+  const yTicks = ticks(0, yTop, 4).map(v => ({ value: v, y: y(v) }))
   const stamps = input.times.map(t => new Date(t))
 
   const lines = input.lines.map((ln) => {
@@ -85,6 +92,6 @@ export function trendPanel(input: TrendPanelInput) {
     lines,
     labels,
     limits: limits.map((l, k) => ({ ...l, labelY: limitLabelYs[k]! })),
-    yMax: y.domain()[1]!,
+    yMax: yTop,
   }
 }

@@ -26,7 +26,7 @@ const SHALLOW = benchCode(1) // 20 levels
 type Row = { phase: string, route: string, path: string, reqPerS: number, p50Ms: number, p99Ms: number, non2xx: number, errors: number, ratioToLive: number }
 
 async function signIn(email: string, password: string) {
-  const res = await fetch(`${BASE}/api/session`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email, password }) })
+  const res = await fetch(`${BASE}/api/session`, { method: 'POST', headers: { 'content-type': 'application/json', 'origin': BASE }, body: JSON.stringify({ email, password }) })
   if (res.status !== 200) throw new Error(`sign-in of ${email} failed: ${res.status} ${await res.text()}`)
   const cookie = res.headers.getSetCookie().map(c => c.split(';')[0]!).find(c => c.startsWith('nuxt-session='))
   if (!cookie) throw new Error('no session cookie')

@@ -33,12 +33,12 @@ app_build() {
   node_modules/.bin/nuxt build >"$VEERLINE_DATA_DIR/build.log" 2>&1 || { tail -40 "$VEERLINE_DATA_DIR/build.log"; die "nuxt build failed: see $VEERLINE_DATA_DIR/build.log"; }
 }
 
-# Starts one app server in the background: app_serve PORT LOGFILE; sets APP_PID.
+# Starts one app server in the background: app_serve PORT LOGFILE; sets APP_PID. VEERLINE_NODE_ARGS: extra node flags.
 app_serve() {
   local port=$1 logfile=$2
   export NUXT_PUBLIC_APP_URL=${NUXT_PUBLIC_APP_URL:-http://127.0.0.1:$port}
   HOST=$VEERLINE_HOST PORT=$port NITRO_HOST=$VEERLINE_HOST NITRO_PORT=$port \
-    node .output/server/index.mjs >"$logfile" 2>&1 &
+    node ${VEERLINE_NODE_ARGS:-} .output/server/index.mjs >"$logfile" 2>&1 &
   APP_PID=$!
   local i
   for i in $(seq 1 100); do

@@ -5,6 +5,7 @@ import mysql from 'mysql2/promise'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { ApiClient, signedIn } from '../support/api'
 import { mailTo, waitFor } from '../support/alerts'
+import { startSecondInstance } from '../support/instance'
 
 let admin: ApiClient
 let db: mysql.Connection
@@ -134,5 +135,33 @@ describe('a session ends on the server, not only in the browser', () => {
     const [rows] = await db.query('SELECT id_hash AS idHash FROM user_sessions WHERE user_id = ?', [id]) as unknown as [{ idHash: string }[]]
     expect(rows).toHaveLength(2)
     for (const r of rows) expect(r.idHash).toMatch(/^[0-9a-f]{64}$/)
+  })
+})
+
+describe('sessions across instances: nothing kept that could outlive a change', () => {
+  it('a disable or a sign-out made on a second instance ends the session on the first at its very next request', async () => {
+    const second = await startSecondInstance('admin@veerline.example')
+    try {
+      const a = await freshUser()
+      const ca = await signIn(a.email)
+      // Warm this instance: the same session asked many times at once, as a busy page does.
+      const warm = await Promise.all(Array.from({ length: 20 }, () => ca.get('/api/session')))
+      expect(warm.every(r => r.status === 200)).toBe(true)
+      expect((await second.client.patch(`/api/users/${a.id}`, { disabled: true })).status).toBe(200)
+      // No time to live to wait out: the first request after the change is refused, and every one with it.
+      const after = await Promise.all(Array.from({ length: 20 }, () => copyOf(ca).get('/api/session')))
+      expect(after.map(r => r.status)).toEqual(Array.from({ length: 20 }, () => 401))
+
+      const b = await freshUser()
+      const cb = await signIn(b.email)
+      const onSecond = new ApiClient(second.client.baseUrl)
+      onSecond.cookie = cb.cookie
+      expect((await cb.get('/api/briefings')).status).toBe(200)
+      expect((await onSecond.delete('/api/session')).status).toBeLessThan(300)
+      expect((await copyOf(cb).get('/api/briefings')).status).toBe(401)
+    }
+    finally {
+      await second.stop()
+    }
   })
 })

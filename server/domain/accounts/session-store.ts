@@ -6,6 +6,8 @@ import { and, eq, lt, ne, or, schema, useDB } from '../../utils/db'
 import type { DB, Tx } from '../../utils/db'
 import type { User } from '../../db/schema'
 import { recordAudit } from '../../utils/audit'
+import { sharedRead } from '../../utils/shared-read'
+import { keepUnsealed, primeUnsealed, sealedSessionOf } from './unsealed-sessions'
 
 /** How often a session's last-seen time (and its cookie's expiry) is moved on: at most one write a minute. */
 export const SESSION_TOUCH_MS = 60_000
@@ -69,16 +71,22 @@ export async function startSession(event: H3Event, user: User, publicUser: Pick<
  * One read: the session row joined to its user.
  */
 export async function sessionUserOrEnd(event: H3Event): Promise<User> {
+  const sealed = sealedSessionOf(event)
+  const primed = sealed !== undefined && primeUnsealed(event, sealed)
   const session = await getUserSession(event) as SessionData
+  if (sealed !== undefined && !primed) keepUnsealed(event, sealed)
   if (!session.user || typeof session.sid !== 'string') {
     if (session.user) await clearUserSession(event)
     throw createError({ statusCode: 401, statusMessage: 'Sign in first' })
   }
   const idHash = sessionIdHash(session.sid)
   const db = useDB()
-  const [found] = await db.select({ user: schema.users, session: schema.userSessions }).from(schema.userSessions)
+  // Requests of the same session arriving together share one read that starts after all of them arrived
+  // (server/utils/shared-read.ts): an ended session or a disabled user is refused on the very next request.
+  const [found] = await sharedRead(`session:${idHash}`, () => db.select({ user: schema.users, session: schema.userSessions })
+    .from(schema.userSessions)
     .innerJoin(schema.users, eq(schema.users.id, schema.userSessions.userId))
-    .where(eq(schema.userSessions.idHash, idHash))
+    .where(eq(schema.userSessions.idHash, idHash)))
   const now = Date.now()
   const verdict = checkSession(found?.session, found?.user, now, sessionLimits())
   if (!verdict.ok) {

@@ -5,6 +5,7 @@
  */
 import type { Airfield } from '../../db/schema'
 import { usePool } from '../../utils/db'
+import { sharedRead } from '../../utils/shared-read'
 import { airfieldSummary } from './index'
 
 // A raw mysql2 row: its columns are typed where they are read.
@@ -47,5 +48,19 @@ export async function readAirfieldList(now = new Date()) {
       runwayEnds: r.designators ? String(r.designators).split(',') : [],
       profileState: { state: cur ? 'current' as const : nxt ? 'upcoming' as const : 'none' as const, current: cur, next: nxt },
     }
+  })
+}
+
+export type AirfieldListAnswer = { airfields: Awaited<ReturnType<typeof readAirfieldList>>, at: string }
+
+/**
+ * GET /api/airfields as JSON text: the same for every reader, so the requests arriving together share one read
+ * and one serialisation, made after each of them arrived (server/utils/shared-read.ts).
+ */
+export function airfieldListJson(): Promise<string> {
+  return sharedRead('airfield-list', async () => {
+    const now = new Date()
+    const answer: AirfieldListAnswer = { airfields: await readAirfieldList(now), at: now.toISOString() }
+    return JSON.stringify(answer)
   })
 }

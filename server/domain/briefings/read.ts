@@ -15,6 +15,7 @@ import { evaluateLimits } from '../../../shared/limits'
 import { limitSetFromRows } from '../alerts/limits'
 import { VEERLINE_CAUTION } from '../../../shared/utils/caution'
 import { BoundedCache } from './analysis-cache'
+import { sharedRead } from '../../utils/shared-read'
 import { displayGridIndexes, displayLevelIndexes, roundFigures } from './precision'
 
 /** Changes whenever the engine, the magnetic model or the shape of the answer changes: part of every key. */
@@ -254,7 +255,14 @@ const weakTag = (s: string) => `W/"${createHash('md5').update(s).digest('base64u
  * The briefing answer of GET /api/airfields/{code}/briefing as JSON text with its ETag, for one reader.
  * `at` defaults to now; `profileId` picks a version of this airfield.
  */
-export async function readBriefing(code: string, userId: number, opts: { at?: Date, profileId?: number, precision?: Precision }): Promise<BriefingRead> {
+export function readBriefing(code: string, userId: number, opts: { at?: Date, profileId?: number, precision?: Precision }): Promise<BriefingRead> {
+  // The same reader asking the same briefing at the same moment shares one read (server/utils/shared-read.ts), made
+  // after each of them arrived: never staler than a read of its own.
+  const key = `briefing:${code.toUpperCase()}|${userId}|${opts.profileId ?? ''}|${opts.at?.toISOString() ?? 'now'}|${opts.precision ?? 'trade'}`
+  return sharedRead(key, () => readBriefingNow(code, userId, opts))
+}
+
+async function readBriefingNow(code: string, userId: number, opts: { at?: Date, profileId?: number, precision?: Precision }): Promise<BriefingRead> {
   const now = new Date()
   const at = opts.at ?? now
   const precision = opts.precision ?? 'trade'
@@ -319,5 +327,15 @@ export async function readBriefingSummaries() {
     if (!profile) return { code: airfield.code, name: airfield.name, runwayEnds, profile: null, exceededCount: 0, bestEnd: null }
     const e = entry ?? computed.get(key)!
     return { code: airfield.code, name: airfield.name, runwayEnds, profile: publicProfileOf(profile, now), exceededCount: e.exceededCount, bestEnd: e.bestEnd }
+  })
+}
+
+export type BriefingListAnswer = { airfields: Awaited<ReturnType<typeof readBriefingSummaries>>, caution: string }
+
+/** GET /api/briefings as JSON text: the same for every reader, one read and serialisation for those arriving together. */
+export function briefingListJson(): Promise<string> {
+  return sharedRead('briefing-list', async () => {
+    const answer: BriefingListAnswer = { airfields: await readBriefingSummaries(), caution: VEERLINE_CAUTION }
+    return JSON.stringify(answer)
   })
 }

@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest'
+import { scaleLinear, scaleUtc } from 'd3-scale'
 import { spreadLabels, trendPanel } from '../../../utils/trend-geometry'
+import { linearScale } from '../../../utils/polar-geometry'
 
 // Layout rules of the day's trend chart (drawing geometry, not wind figures).
 const times = ['2026-12-02T00:30:00Z', '2026-12-02T06:00:00Z', '2026-12-02T12:00:00Z', '2026-12-02T18:00:00Z']
@@ -20,6 +22,26 @@ describe('trend chart geometry', () => {
     }
     expect(p.limits.map(l => l.name)).toEqual(['crosswind limit']) // a limit not set is not drawn as 0
     expect(p.labels[0]).toMatchObject({ name: 'crosswind', lastValue: '12' })
+  })
+
+  it('places ticks and points where d3-scale\'s time and linear scales put them (d3-scale 4 as the reference)', () => {
+    const lines = [{ name: 'shear', values: [1.2, 3.37, 2.5, 0.4], cls: '', textCls: '', dash: '', decimals: 2 }]
+    for (const widthPx of [390, 1200]) {
+      const p = trendPanel({ date: '2026-12-02', times, widthPx, heightPx: 190, lines, limits: [{ name: 'shear limit', value: 4 }] })
+      const x = scaleUtc().domain([new Date('2026-12-02T00:00:00Z'), new Date('2026-12-03T00:00:00Z')]).range([p.plot.left, p.plot.right])
+      const y = scaleLinear().domain([0, 4 * 1.12]).range([p.plot.bottom, p.plot.top]).nice()
+      const d3x = x.ticks(widthPx < 600 ? 4 : 8)
+      expect(p.xTicks.map(t => t.label)).toEqual(d3x.map(t => `${t.toISOString().slice(11, 13)}Z`))
+      p.xTicks.forEach((t, i) => expect(t.x).toBeCloseTo(x(d3x[i]!), 9))
+      expect(p.yMax).toBe(y.domain()[1])
+      expect(p.yTicks.map(t => t.value)).toEqual(y.ticks(4))
+      p.yTicks.forEach(t => expect(t.y).toBeCloseTo(y(t.value), 9))
+      expect(p.lines[0]!.last!.y).toBeCloseTo(y(0.4), 9)
+      expect(p.lines[0]!.last!.x).toBeCloseTo(x(new Date(times[3]!)), 9)
+    }
+    const f = linearScale(0, 40, 0, 136)
+    const g = scaleLinear().domain([0, 40]).range([0, 136])
+    for (const v of [0, 7.3, 19.4, 40, 52]) expect(f(v)).toBeCloseTo(g(v), 12)
   })
 
   it('uses fewer hour ticks on a phone than on a desk', () => {

@@ -1,8 +1,8 @@
-// The two in-memory caches: the analysis cache's bounds and the session cache's lifetime (a clock passed in, no waiting).
+// The analysis cache's bounds, the trade precision, and the shared reads that let requests arriving together share one query.
 import { describe, expect, it } from 'vitest'
 import { BoundedCache } from '../../../server/domain/briefings/analysis-cache'
-import { ShortSessionCache } from '../../../server/domain/accounts/session-cache'
 import { displayLevelIndexes, roundFigures, roundTo } from '../../../server/domain/briefings/precision'
+import { sharedRead, sharedReadsWaiting } from '../../../server/utils/shared-read'
 
 describe('BoundedCache', () => {
   it('keeps at most its entries and bytes, dropping the least recently used first', () => {
@@ -19,31 +19,6 @@ describe('BoundedCache', () => {
     expect(c.get('big')?.v).toBe('big')
     c.set('huge', { bytes: 101, v: 'x' })
     expect(c.get('huge')).toBeUndefined()
-  })
-})
-
-describe('ShortSessionCache', () => {
-  it('forgets an entry after its lifetime and at once when the user changes', () => {
-    const c = new ShortSessionCache<string>(1000, 2)
-    c.set('s1', 7, 'pilot', 0)
-    expect(c.get('s1', 999)).toBe('pilot')
-    expect(c.get('s1', 1000)).toBeUndefined()
-    c.set('s1', 7, 'pilot', 2000)
-    c.set('s2', 7, 'pilot', 2000)
-    c.forgetUser(7)
-    expect(c.get('s1', 2001)).toBeUndefined()
-    expect(c.get('s2', 2001)).toBeUndefined()
-    c.set('a', 1, 'x', 0)
-    c.set('b', 2, 'y', 0)
-    c.set('c', 3, 'z', 0)
-    expect(c.size).toBe(2)
-    expect(c.get('a', 1)).toBeUndefined()
-  })
-
-  it('never keeps anything longer than one second, whatever it is asked', () => {
-    const c = new ShortSessionCache<string>(0)
-    c.set('s', 1, 'v', 0)
-    expect(c.get('s', 0)).toBeUndefined()
   })
 })
 
@@ -68,5 +43,43 @@ describe('trade precision', () => {
     expect(shown.at(-1)).toBe(4999)
     expect(shown.filter(i => deep[i]! <= 600).length).toBeLessThanOrEqual(80)
     expect([...shown].sort((a, b) => a - b)).toEqual(shown)
+  })
+})
+
+describe('sharedRead', () => {
+  it('gives the requests that arrive together one read, and a request arriving once a read has begun a new one', async () => {
+    const begun: number[] = []
+    const finish: Array<(v: string) => void> = []
+    const read = () => {
+      begun.push(begun.length + 1)
+      return new Promise<string>(resolve => finish.push(resolve))
+    }
+    const a = sharedRead('k', read)
+    const b = sharedRead('k', read)
+    const other = sharedRead('other', async () => 'other')
+    expect(sharedReadsWaiting()).toBe(2)
+    expect(begun).toEqual([]) // nothing starts before the turn ends: whoever comes in this turn joins
+    await new Promise(r => setImmediate(r))
+    expect(begun).toEqual([1])
+    // The first read is under way: a request now must not take its answer (it may predate a change this one follows).
+    const c = sharedRead('k', read)
+    await new Promise(r => setImmediate(r))
+    expect(begun).toEqual([1, 2])
+    finish[0]!('first')
+    finish[1]!('second')
+    expect(await a).toBe('first')
+    expect(await b).toBe('first')
+    expect(await c).toBe('second')
+    expect(await other).toBe('other')
+    expect(sharedReadsWaiting()).toBe(0)
+  })
+
+  it('hands a failed read\'s error to each request that shared it, and the next request reads afresh', async () => {
+    const failing = () => Promise.reject(new Error('database away'))
+    const x = sharedRead('f', failing)
+    const y = sharedRead('f', failing)
+    await expect(x).rejects.toThrow('database away')
+    await expect(y).rejects.toThrow('database away')
+    expect(await sharedRead('f', async () => 'back')).toBe('back')
   })
 })
