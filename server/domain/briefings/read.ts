@@ -98,9 +98,30 @@ export const briefingCache = new BoundedCache<CachedBriefing>()
 
 export type Precision = 'trade' | 'full'
 
-const keyOf = (profileId: number, stamp: string, precision: Precision) => `${profileId}|${stamp}|${precision}|${CODE_VERSION}`
+const keyOf = (profileId: number, stamp: string, precision: Precision, focus: EndFocus = 'all') => `${profileId}|${stamp}|${precision}|${focus}|${CODE_VERSION}`
 
 /** The figures a page shows: levels thinned for display, no figure twice, rounded to the trade's precision. */
+/**
+ * Which runway ends a briefing answer details: every one ('all', the API's default), or the one a page shows (a
+ * designator; an unknown one, or 'best', gives the best-ranked end, as the page chooses when nothing else is asked).
+ */
+export type EndFocus = string
+
+/** The answer with its per-end figures (components by height and level, checks, paths) for the focused ends only. */
+export function focusEnds<T extends { runwayEnds: { designator: string }[], ranking: { designator: string }[],
+  feetSteps: { components: { designator: string }[] }[], keyHeights: Record<'ft' | 'm', { components: { designator: string }[] }[]> }>(b: T, focus: EndFocus): T {
+  if (focus === 'all') return b
+  const known = b.runwayEnds.some(e => e.designator === focus)
+  const chosen = known ? focus : (b.ranking[0]?.designator ?? b.runwayEnds[0]?.designator)
+  const only = <C extends { designator: string }>(xs: C[]) => xs.filter(x => x.designator === chosen)
+  return {
+    ...b,
+    runwayEnds: only(b.runwayEnds),
+    feetSteps: b.feetSteps.map(f => ({ ...f, components: only(f.components) })),
+    keyHeights: { ft: b.keyHeights.ft.map(k => ({ ...k, components: only(k.components) })), m: b.keyHeights.m.map(k => ({ ...k, components: only(k.components) })) },
+  }
+}
+
 export function briefingView(full: Briefing, profileId: number) {
   const keep = displayLevelIndexes(full.levels.map(l => l.heightAglM))
   const pick = <T>(xs: T[]) => (keep.length === xs.length ? xs : keep.map(i => xs[i]!))
@@ -126,7 +147,7 @@ export function briefingView(full: Briefing, profileId: number) {
 }
 
 /** Analyses stored profiles of several airfields in a fixed number of queries and keeps each in the cache. */
-async function computeMany(items: { key: string, precision: Precision, profile: ProfileHead, airfield: Airfield }[]) {
+async function computeMany(items: { key: string, precision: Precision, focus?: EndFocus, profile: ProfileHead, airfield: Airfield }[]) {
   if (!items.length) return new Map<string, CachedBriefing>()
   const db = useDB()
   const airfieldIds = [...new Set(items.map(i => i.airfield.id))]
@@ -166,7 +187,7 @@ async function computeMany(items: { key: string, precision: Precision, profile: 
     }
     const full = assembleBriefing(stored, limitSet, change)
     const ranking = rankRunwayEnds(stored.analysis.runwayEnds, checks)
-    const rest = item.precision === 'full' ? full : briefingView(full, item.profile.id)
+    const rest = focusEnds(item.precision === 'full' ? full : briefingView(full, item.profile.id), item.focus ?? 'all')
     const restJson = JSON.stringify(rest)
     const entry: CachedBriefing = {
       restJson,
@@ -255,14 +276,14 @@ const weakTag = (s: string) => `W/"${createHash('md5').update(s).digest('base64u
  * The briefing answer of GET /api/airfields/{code}/briefing as JSON text with its ETag, for one reader.
  * `at` defaults to now; `profileId` picks a version of this airfield.
  */
-export function readBriefing(code: string, userId: number, opts: { at?: Date, profileId?: number, precision?: Precision }): Promise<BriefingRead> {
+export function readBriefing(code: string, userId: number, opts: { at?: Date, profileId?: number, precision?: Precision, end?: EndFocus }): Promise<BriefingRead> {
   // The same reader asking the same briefing at the same moment shares one read (server/utils/shared-read.ts), made
   // after each of them arrived: never staler than a read of its own.
-  const key = `briefing:${code.toUpperCase()}|${userId}|${opts.profileId ?? ''}|${opts.at?.toISOString() ?? 'now'}|${opts.precision ?? 'trade'}`
+  const key = `briefing:${code.toUpperCase()}|${userId}|${opts.profileId ?? ''}|${opts.at?.toISOString() ?? 'now'}|${opts.precision ?? 'trade'}|${opts.end ?? 'all'}`
   return sharedRead(key, () => readBriefingNow(code, userId, opts))
 }
 
-async function readBriefingNow(code: string, userId: number, opts: { at?: Date, profileId?: number, precision?: Precision }): Promise<BriefingRead> {
+async function readBriefingNow(code: string, userId: number, opts: { at?: Date, profileId?: number, precision?: Precision, end?: EndFocus }): Promise<BriefingRead> {
   const now = new Date()
   const at = opts.at ?? now
   const precision = opts.precision ?? 'trade'
@@ -289,8 +310,9 @@ async function readBriefingNow(code: string, userId: number, opts: { at?: Date, 
     return { kind: 'no-profile', body, etag: weakTag(`${row.stamp}|none|${opts.at ? at.toISOString() : ''}`) }
   }
   const profile = profileOf(row, airfield.id)
-  const key = keyOf(profile.id, row.stamp, precision)
-  const entry = briefingCache.get(key) ?? (await computeMany([{ key, precision, profile, airfield }])).get(key)!
+  const focus = opts.end ?? 'all'
+  const key = keyOf(profile.id, row.stamp, precision, focus)
+  const entry = briefingCache.get(key) ?? (await computeMany([{ key, precision, focus, profile, airfield }])).get(key)!
   const p = publicProfileOf(profile, now, at, opts.at != null)
   const head = JSON.stringify({ at: at.toISOString(), atChosen: opts.at != null, generatedAt: now.toISOString(), profile: p })
   const receipt = row.r_id == null ? null : { id: row.r_id, profileId: profile.id, readAt: (row.r_read_at as Date).toISOString() }
@@ -333,9 +355,9 @@ export async function readBriefingSummaries() {
 export type BriefingListAnswer = { airfields: Awaited<ReturnType<typeof readBriefingSummaries>>, caution: string }
 
 /** GET /api/briefings as JSON text: the same for every reader, one read and serialisation for those arriving together. */
-export function briefingListJson(): Promise<string> {
+export function briefingListJson(): Promise<{ text: string }> {
   return sharedRead('briefing-list', async () => {
     const answer: BriefingListAnswer = { airfields: await readBriefingSummaries(), caution: VEERLINE_CAUTION }
-    return JSON.stringify(answer)
+    return { text: JSON.stringify(answer) }
   })
 }
