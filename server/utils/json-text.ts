@@ -4,9 +4,10 @@ import { gzipSync, constants } from 'node:zlib'
 /** Answers under this size go as they are: compressing them saves less than it costs. */
 export const GZIP_MIN_BYTES = 1024
 
-// One compressed copy per answer text made by a shared read (server/utils/shared-read.ts): the requests sharing
-// the read share the compression too. Keyed by the object that holds the text, so it goes when the read does.
-const compressed = new WeakMap<object, Buffer>()
+// The last compressed copy of each answer (by the key of its shared read, server/utils/shared-read.ts): while the
+// text stays the same (times in answers go to the second), every request of every read reuses it. Bounded.
+const MEMO_MAX = 500
+const compressed = new Map<string, { text: string, body: Buffer }>()
 
 /**
  * Whether Accept-Encoding accepts gzip (RFC 9110 §12.5.3): gzip listed with a weight above 0, or else "*" with one;
@@ -27,18 +28,21 @@ export function acceptsGzip(header: string | undefined): boolean {
 
 /**
  * Sends JSON text (already serialised, often shared by several requests) with its type; gzip-compressed when the
- * client accepts it and the text is not small, compressed once per `owner`. Returns what the handler answers.
+ * client accepts it and the text is not small, compressed once while the text under `memoKey` stays the same.
+ * Returns what the handler answers.
  */
-export function jsonText(event: H3Event, owner: object, text: string): string | Buffer {
+export function jsonText(event: H3Event, memoKey: string, text: string): string | Buffer {
   setResponseHeader(event, 'content-type', 'application/json; charset=utf-8')
   setResponseHeader(event, 'vary', 'accept-encoding')
   if (text.length < GZIP_MIN_BYTES || !acceptsGzip(event.node.req.headers['accept-encoding'])) return text
-  let body = compressed.get(owner)
-  if (!body) {
+  let kept = compressed.get(memoKey)
+  if (!kept || kept.text !== text) {
     // Level 4: most of level 9's saving on JSON for a fraction of its time.
-    body = gzipSync(text, { level: 4, strategy: constants.Z_DEFAULT_STRATEGY })
-    compressed.set(owner, body)
+    kept = { text, body: gzipSync(text, { level: 4, strategy: constants.Z_DEFAULT_STRATEGY }) }
+    compressed.delete(memoKey)
+    compressed.set(memoKey, kept)
+    while (compressed.size > MEMO_MAX) compressed.delete(compressed.keys().next().value as string)
   }
   setResponseHeader(event, 'content-encoding', 'gzip')
-  return body
+  return kept.body
 }

@@ -5,5 +5,5 @@ export default defineApiHandler(async (event) => {
   await requireUser(event)
   const answer = await airfieldListJson()
   // JSON text shared by the requests that came together (gzip when asked); typed as what it spells for the pages.
-  return jsonText(event, answer, answer.text) as unknown as AirfieldListAnswer
+  return jsonText(event, 'airfield-list', answer.text) as unknown as AirfieldListAnswer
 })

@@ -5,5 +5,5 @@ export default defineApiHandler(async (event) => {
   await requireCapability(event, 'read-briefings')
   const answer = await briefingListJson()
   // JSON text shared by the requests that came together (gzip when asked); typed as what it spells for the pages.
-  return jsonText(event, answer, answer.text) as unknown as BriefingListAnswer
+  return jsonText(event, 'briefing-list', answer.text) as unknown as BriefingListAnswer
 })

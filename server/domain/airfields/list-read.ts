@@ -60,7 +60,7 @@ export type AirfieldListAnswer = { airfields: Awaited<ReturnType<typeof readAirf
 export function airfieldListJson(): Promise<{ text: string }> {
   return sharedRead('airfield-list', async () => {
     const now = new Date()
-    const answer: AirfieldListAnswer = { airfields: await readAirfieldList(now), at: now.toISOString() }
+    const answer: AirfieldListAnswer = { airfields: await readAirfieldList(now), at: `${now.toISOString().slice(0, 19)}Z` }
     return { text: JSON.stringify(answer) }
   })
 }

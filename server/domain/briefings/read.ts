@@ -108,8 +108,13 @@ const keyOf = (profileId: number, stamp: string, precision: Precision, focus: En
 export type EndFocus = string
 
 /** The answer with its per-end figures (components by height and level, checks, paths) for the focused ends only. */
-export function focusEnds<T extends { runwayEnds: { designator: string }[], ranking: { designator: string }[],
-  feetSteps: { components: { designator: string }[] }[], keyHeights: Record<'ft' | 'm', { components: { designator: string }[] }[]> }>(b: T, focus: EndFocus): T {
+type Focusable = {
+  runwayEnds: { designator: string }[]
+  ranking: { designator: string }[]
+  feetSteps: { components: { designator: string }[] }[]
+  keyHeights: Record<'ft' | 'm', { components: { designator: string }[] }[]>
+}
+export function focusEnds<T extends Focusable>(b: T, focus: EndFocus): T {
   if (focus === 'all') return b
   const known = b.runwayEnds.some(e => e.designator === focus)
   const chosen = known ? focus : (b.ranking[0]?.designator ?? b.runwayEnds[0]?.designator)
@@ -267,8 +272,11 @@ export type BriefingAnswer
 export type BriefingRead
   = | { kind: 'no-airfield', code: string }
     | { kind: 'no-such-profile', code: string, profileId: number }
-    | { kind: 'no-profile', body: string, etag: string }
-    | { kind: 'briefing', body: string, etag: string, profileId: number }
+    | { kind: 'no-profile', body: string, etag: string, memoKey: string }
+    | { kind: 'briefing', body: string, etag: string, profileId: number, memoKey: string }
+
+/** An instant as ISO 8601 to the whole second (2026-12-02T15:04:05Z). */
+export const toSecond = (d: Date) => `${d.toISOString().slice(0, 19)}Z`
 
 const weakTag = (s: string) => `W/"${createHash('md5').update(s).digest('base64url')}"`
 
@@ -280,10 +288,10 @@ export function readBriefing(code: string, userId: number, opts: { at?: Date, pr
   // The same reader asking the same briefing at the same moment shares one read (server/utils/shared-read.ts), made
   // after each of them arrived: never staler than a read of its own.
   const key = `briefing:${code.toUpperCase()}|${userId}|${opts.profileId ?? ''}|${opts.at?.toISOString() ?? 'now'}|${opts.precision ?? 'trade'}|${opts.end ?? 'all'}`
-  return sharedRead(key, () => readBriefingNow(code, userId, opts))
+  return sharedRead(key, () => readBriefingNow(code, userId, opts, key))
 }
 
-async function readBriefingNow(code: string, userId: number, opts: { at?: Date, profileId?: number, precision?: Precision, end?: EndFocus }): Promise<BriefingRead> {
+async function readBriefingNow(code: string, userId: number, opts: { at?: Date, profileId?: number, precision?: Precision, end?: EndFocus }, memoKey: string): Promise<BriefingRead> {
   const now = new Date()
   const at = opts.at ?? now
   const precision = opts.precision ?? 'trade'
@@ -307,20 +315,21 @@ async function readBriefingNow(code: string, userId: number, opts: { at?: Date, 
     const ends = await useDB().select().from(schema.runwayEnds).where(inArray(schema.runwayEnds.airfieldId, [airfield.id])) as RunwayEnd[]
     const body = JSON.stringify({ briefing: null, airfield: roundFigures(publicAirfield(airfield, ends)), at: at.toISOString(),
       message: `No wind profile has been filed for ${airfield.code} at or before ${at.toISOString()}`, caution: VEERLINE_CAUTION, receipt: null })
-    return { kind: 'no-profile', body, etag: weakTag(`${row.stamp}|none|${opts.at ? at.toISOString() : ''}`) }
+    return { kind: 'no-profile', body, etag: weakTag(`${row.stamp}|none|${opts.at ? at.toISOString() : ''}`), memoKey }
   }
   const profile = profileOf(row, airfield.id)
   const focus = opts.end ?? 'all'
   const key = keyOf(profile.id, row.stamp, precision, focus)
   const entry = briefingCache.get(key) ?? (await computeMany([{ key, precision, focus, profile, airfield }])).get(key)!
   const p = publicProfileOf(profile, now, at, opts.at != null)
-  const head = JSON.stringify({ at: at.toISOString(), atChosen: opts.at != null, generatedAt: now.toISOString(), profile: p })
+  // Times to the second (a chosen time as given): within one second, nothing changed, the same text (and its gzip).
+  const head = JSON.stringify({ at: opts.at ? at.toISOString() : toSecond(now), atChosen: opts.at != null, generatedAt: toSecond(now), profile: p })
   const receipt = row.r_id == null ? null : { id: row.r_id, profileId: profile.id, readAt: (row.r_read_at as Date).toISOString() }
   const receiptJson = JSON.stringify(receipt)
   const body = `{"briefing":${head.slice(0, -1)},${entry.restJson.slice(1)},"caution":${CAUTION_JSON},"receipt":${receiptJson}}`
   // Same profile version, same inputs, same status and receipt: the same briefing (the times in it aside).
   const etag = weakTag(`${key}|${p.status}|${p.statusNow}|${p.supersededById}|${p.withdrawnReason}|${p.filedMinutesAgo}|${p.stale}|${receiptJson}|${opts.at ? at.toISOString() : ''}`)
-  return { kind: 'briefing', body, etag, profileId: profile.id }
+  return { kind: 'briefing', body, etag, profileId: profile.id, memoKey }
 }
 
 /** One line per airfield for the home list: its profile in force now and what it crosses. A fixed number of queries. */

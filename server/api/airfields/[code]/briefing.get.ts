@@ -16,5 +16,5 @@ export default defineApiHandler(async (event) => {
   setResponseHeader(event, 'cache-control', 'private, no-cache')
   if (getRequestHeader(event, 'if-none-match') === read.etag) return sendNoContent(event, 304)
   // JSON text spliced from the cache (gzip when asked, once per shared read); typed as what it spells for the pages.
-  return jsonText(event, read, read.body) as unknown as BriefingAnswer
+  return jsonText(event, read.memoKey, read.body) as unknown as BriefingAnswer
 })
