@@ -1,18 +1,10 @@
 import type { LimitFieldKey } from '~/utils/limit-form'
+import type { LimitEffectItem } from '~~/shared/limits'
+
+export type { LimitEffectItem }
 
 // A limit change in two steps: first a dry run (`?dryRun=1`, nothing saved) that answers which alerts it would raise
 // and clear; then the save, which for a lowered limit needs the explicit confirmation of that list.
-export interface LimitEffectItem {
-  event: 'raised' | 'cleared'
-  airfieldCode: string
-  designator: string
-  kind: string
-  profileId: number
-  value: number
-  limitValue: number
-  unit: string
-  message: string
-}
 export interface LimitChangeAnswer {
   dryRun: boolean
   effectiveBefore: Record<LimitFieldKey, number>

@@ -8,9 +8,13 @@ self.addEventListener('push', (event) => {
     data = { title: 'Veerline', body: event.data ? event.data.text() : '' }
   }
   const body = [data.body, data.caution].filter(Boolean).join('\n\n')
-  event.waitUntil(self.registration.showNotification(data.title || 'Veerline alert', {
-    body, tag: data.deliveryId ? `veerline-${data.deliveryId}` : undefined, data: { url: data.url || '/alerts' },
-  }))
+  // A resend carries the same deliveryId: when its notification is still shown, the copy is dropped (and the tag
+  // would replace it rather than add a second one in any case).
+  const tag = data.deliveryId ? `veerline-${data.deliveryId}` : undefined
+  event.waitUntil((async () => {
+    if (tag && (await self.registration.getNotifications({ tag })).length) return
+    await self.registration.showNotification(data.title || 'Veerline alert', { body, tag, data: { url: data.url || '/alerts' } })
+  })())
 })
 
 self.addEventListener('notificationclick', (event) => {

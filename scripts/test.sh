@@ -44,6 +44,11 @@ if [ "${VEERLINE_QUICK:-}" != 1 ]; then
 fi
 
 mariadb_start
+# A database of its own for the delivery fault tests (tests/api/outbox.test.ts): only the app instances that test
+# starts work on it, so it can stop and kill them without the main test server's worker taking their rows.
+app_database veerline_test_outbox fresh
+app_migrate_and_seed
+export VEERLINE_OUTBOX_TEST_DATABASE_URL=$DATABASE_URL
 app_database veerline_test fresh
 app_migrate_and_seed
 app_build

@@ -1,16 +1,18 @@
 // Local push-service stand-in (RFC 8030) on http://127.0.0.1:$VEERLINE_PUSH_PORT. It issues subscriptions (keeping
 // each one's private key), takes pushes for them, checks the VAPID JWT (RFC 8292, ES256) and decrypts the aes128gcm
-// payload (RFC 8291) with http_ece. Everything is kept in $VEERLINE_DATA_DIR/standins/pushbox.json.
+// payload (RFC 8291) with http_ece. Subscriptions are kept in $VEERLINE_DATA_DIR/standins/push-subscriptions.json;
+// every message is appended, one JSON line each, to standins/pushbox.jsonl (never a whole-file rewrite) and kept.
 //   POST /subscriptions {label}  -> 201 {id, endpoint, keys: {p256dh, auth}}
 //   POST /push/<id>              -> 201 (the push message), 404 unknown subscription, 401 bad VAPID, 400 bad payload
-//   GET  /messages[?subscription=<id>] -> {messages}
+//   GET  /messages[?subscription=<id>[,<id>…]&page=1&pageSize=200] -> {messages (newest first), total, page, pageSize}
 //   GET  /healthz
 import { createServer, type IncomingMessage, type ServerResponse } from 'node:http'
 import { createECDH, createPublicKey, randomBytes, randomUUID, verify } from 'node:crypto'
+import { writeFileSync } from 'node:fs'
 import { join } from 'node:path'
 // @ts-expect-error http_ece ships no types
 import ece from 'http_ece'
-import { pushPort, readJson, standinDir, writeJson } from './lib/common'
+import { appendJsonLine, controlNumber, pushPort, readJson, readJsonLines, rotateIfLarge, standinDir, writeJson } from './lib/common'
 
 interface Subscription { id: string, label: string, publicKey: string, privateKey: string, auth: string, createdAt: string }
 export interface PushMessage {
@@ -23,12 +25,15 @@ export interface PushMessage {
   vapid: { verified: boolean, subject: string | null, audience: string | null, publicKey: string | null }
   payload: unknown
 }
-interface Box { subscriptions: Subscription[], messages: PushMessage[] }
-
 const port = pushPort()
 const origin = `http://127.0.0.1:${port}`
-const file = join(standinDir(), 'pushbox.json')
-const load = () => readJson<Box>(file, { subscriptions: [], messages: [] })
+const subscriptionsFile = join(standinDir(), 'push-subscriptions.json')
+const messagesFile = join(standinDir(), 'pushbox.jsonl')
+// Milliseconds to hold each push before answering (a number in standins/push-delay-ms; the fan-out bench uses it to
+// stand for a remote service's round trip).
+const delayFile = join(standinDir(), 'push-delay-ms')
+const subscriptions = new Map(readJson<Subscription[]>(subscriptionsFile, []).map(s => [s.id, s]))
+let messages: PushMessage[] = []
 const b64u = (b: Buffer) => b.toString('base64url')
 
 /** Checks `Authorization: vapid t=<jwt>, k=<key>` (RFC 8292): ES256 signature, audience, expiry within 24 h. */
@@ -77,21 +82,25 @@ const server = createServer(async (req, res) => {
       const ecdh = createECDH('prime256v1')
       ecdh.generateKeys()
       const sub: Subscription = { id: randomUUID(), label, publicKey: b64u(ecdh.getPublicKey()), privateKey: b64u(ecdh.getPrivateKey()), auth: b64u(randomBytes(16)), createdAt: new Date().toISOString() }
-      const box = load()
-      box.subscriptions.push(sub)
-      writeJson(file, box)
+      subscriptions.set(sub.id, sub)
+      writeJson(subscriptionsFile, [...subscriptions.values()])
       return send(res, 201, { id: sub.id, endpoint: `${origin}/push/${sub.id}`, keys: { p256dh: sub.publicKey, auth: sub.auth } })
     }
     if (req.method === 'GET' && url.pathname === '/messages') {
       const only = url.searchParams.get('subscription')
-      const messages = load().messages.filter(m => !only || m.subscriptionId === only)
-      return send(res, 200, { messages })
+      const ids = only ? new Set(only.split(',')) : null
+      const page = Math.max(1, Math.floor(Number(url.searchParams.get('page')) || 1))
+      const pageSize = Math.min(1000, Math.max(1, Math.floor(Number(url.searchParams.get('pageSize')) || 200)))
+      const matching = ids ? messages.filter(m => ids.has(m.subscriptionId)) : messages
+      const newestFirst = matching.slice(Math.max(0, matching.length - page * pageSize), matching.length - (page - 1) * pageSize).reverse()
+      return send(res, 200, { messages: newestFirst, total: matching.length, page, pageSize })
     }
     const push = /^\/push\/([0-9a-f-]{36})$/.exec(url.pathname)
     if (req.method === 'POST' && push) {
       const raw = await body(req)
-      const box = load()
-      const sub = box.subscriptions.find(s => s.id === push[1])
+      const delayMs = controlNumber(delayFile)
+      if (delayMs) await new Promise(r => setTimeout(r, delayMs))
+      const sub = subscriptions.get(push[1]!)
       if (!sub) return send(res, 404, { error: 'no such subscription' })
       let vapid
       try {
@@ -122,8 +131,8 @@ const server = createServer(async (req, res) => {
         ttl: req.headers.ttl ? Number(req.headers.ttl) : null, urgency: (req.headers.urgency as string) ?? null,
         vapid: { verified: true, ...vapid }, payload,
       }
-      box.messages = [...box.messages, message].slice(-1000)
-      writeJson(file, box)
+      messages.push(message)
+      appendJsonLine(messagesFile, message)
       return send(res, 201, undefined, { location: `${origin}/messages/${message.id}` })
     }
     send(res, 404, { error: 'not found' })
@@ -134,6 +143,9 @@ const server = createServer(async (req, res) => {
 })
 
 if (process.argv[1]?.endsWith('push.ts')) {
-  server.listen(port, '127.0.0.1', () => console.log(`[push stand-in] listening on ${origin}, keeping messages in ${file}`))
+  rotateIfLarge(messagesFile)
+  messages = readJsonLines<PushMessage>(messagesFile)
+  server.listen(port, '127.0.0.1', () => console.log(`[push stand-in] listening on ${origin}, keeping messages in ${messagesFile}`))
   process.on('SIGTERM', () => server.close(() => process.exit(0)))
+  writeFileSync(join(standinDir(), 'push.pid'), String(process.pid))
 }

@@ -1,12 +1,15 @@
-// Local SMTP stand-in for the hosted mail service: accepts every message on 127.0.0.1:$VEERLINE_SMTP_PORT and keeps
-// it in $VEERLINE_DATA_DIR/standins/mailbox.json (the app's admin-only mailbox page reads that file).
+// Local SMTP stand-in for the hosted mail service: accepts every message on 127.0.0.1:$VEERLINE_SMTP_PORT and appends
+// it, one JSON line per message, to $VEERLINE_DATA_DIR/standins/mailbox.jsonl (the app's admin-only mailbox page
+// reads that file a page at a time, newest first). Every message is kept; a file past 64 MB moves aside at start.
 // SIGUSR1 stops listening (connections are refused, as with a mail server that is down); SIGUSR2 listens again.
+// A number of milliseconds in standins/smtp-delay-ms holds every message that long before accepting it (the
+// delivery tests use it to catch a worker mid-batch).
 import { writeFileSync } from 'node:fs'
 import { join } from 'node:path'
 import { randomUUID } from 'node:crypto'
 import { SMTPServer } from 'smtp-server'
 import { simpleParser } from 'mailparser'
-import { readJson, smtpPort, standinDir, writeJson } from './lib/common'
+import { appendJsonLine, controlNumber, rotateIfLarge, smtpPort, standinDir } from './lib/common'
 
 export interface StoredMail {
   id: string
@@ -23,9 +26,10 @@ export interface StoredMail {
   html: string | null
 }
 
-const MAX_KEPT = 1000
-const file = join(standinDir(), 'mailbox.json')
+const file = join(standinDir(), 'mailbox.jsonl')
+const delayFile = join(standinDir(), 'smtp-delay-ms')
 const port = smtpPort()
+rotateIfLarge(file)
 writeFileSync(join(standinDir(), 'smtp.pid'), String(process.pid))
 
 function makeServer() {
@@ -33,15 +37,18 @@ function makeServer() {
     authOptional: true,
     disabledCommands: ['STARTTLS', 'AUTH'],
     banner: 'Veerline SMTP stand-in',
+    // On SIGUSR1 open connections are told 421 and closed within half a second: the outage is real for a pool too.
+    closeTimeout: 500,
     size: 5 * 1024 * 1024,
     onData(stream, session, callback) {
-      simpleParser(stream).then((mail) => {
+      simpleParser(stream).then(async (mail) => {
+        const delayMs = controlNumber(delayFile)
+        if (delayMs) await new Promise(r => setTimeout(r, delayMs))
         const header = (name: string) => {
           const v = mail.headers.get(name)
           return v == null ? null : String(v)
         }
-        const box = readJson<StoredMail[]>(file, [])
-        box.push({
+        const stored: StoredMail = {
           id: randomUUID(),
           receivedAt: new Date().toISOString(),
           envelopeFrom: session.envelope.mailFrom ? session.envelope.mailFrom.address : '',
@@ -54,8 +61,8 @@ function makeServer() {
           subject: mail.subject ?? '',
           text: mail.text ?? '',
           html: typeof mail.html === 'string' ? mail.html : null,
-        })
-        writeJson(file, box.slice(-MAX_KEPT))
+        }
+        appendJsonLine(file, stored)
         callback()
       }, err => callback(err))
     },

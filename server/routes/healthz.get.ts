@@ -1,3 +1,5 @@
+import { outboxStatus } from '../domain/alerts/outbox-status'
+
 const startedAt = Date.now()
 
 // Open to all (load balancers and people alike): says whether the app and its database answer.
@@ -9,7 +11,11 @@ export default defineEventHandler(async (event) => {
       usePool().query('SELECT 1'),
       new Promise((_, reject) => setTimeout(() => reject(new Error('no answer within 2 s')), 2000)),
     ])
-    return { status: 'ok', app, database: { state: 'up', latencyMs: Math.round(performance.now() - started) } }
+    const latencyMs = Math.round(performance.now() - started)
+    // The delivery queue: notices waiting and how long the oldest due one has waited (seconds).
+    const o = await outboxStatus(useDB())
+    const outbox = { backlog: o.backlog, due: o.due, sending: o.sending, retrying: o.retrying, oldestDueAgeS: o.oldestDueAgeS, failed: o.failed }
+    return { status: 'ok', app, database: { state: 'up', latencyMs }, outbox }
   }
   catch (err) {
     setResponseStatus(event, 503)

@@ -42,13 +42,26 @@ export const DEFAULT_LIMITS: Limits = {
 }
 
 /** Sensible ranges the safety office may set, with units, for validation messages. */
+/** One alert a limit change raises or clears, named by airfield, runway end, kind and profile version. */
+export interface LimitEffectItem {
+  event: 'raised' | 'cleared'
+  airfieldCode: string
+  designator: string
+  kind: string
+  profileId: number
+  value: number
+  limitValue: number
+  unit: string
+  message: string
+}
+
 export const LIMIT_RANGES: Record<keyof Limits, { min: number, max: number, unit: string, label: string }> = {
   maxCrosswindKt: { min: 0, max: 60, unit: 'kt', label: 'Maximum crosswind' },
   maxTailwindKt: { min: 0, max: 30, unit: 'kt', label: 'Maximum tailwind' },
   maxLayerShearKtPer100ft: { min: 1, max: 30, unit: 'kt/100 ft', label: 'Maximum layer shear' },
   maxVectorDiff600mKt: { min: 5, max: 100, unit: 'kt', label: 'Maximum vector difference, surface to 600 m' },
   maxAirspeedLossKt: { min: 5, max: 60, unit: 'kt', label: 'Maximum airspeed loss along the path' },
-  maxFFactor: { min: 0.03, max: 0.5, unit: '(F, no unit)', label: 'Maximum F-factor (1 km average)' },
+  maxFFactor: { min: 0.03, max: 0.5, unit: '', label: 'Maximum F-factor (1 km average, no unit)' },
   nearLimitMarginPct: { min: 0, max: 50, unit: '%', label: 'Near-limit margin' },
 }
 
@@ -95,17 +108,30 @@ export const KIND_WORDS: Record<LimitKind, string> = {
   'reported-wind-shear': 'Wind shear reported',
 }
 
+/** A limit figure with its unit, or alone when it has none ('0.1' for the F-factor). */
+export const withUnit = (value: number | string, unit: string) => unit ? `${value} ${unit}` : `${value}`
+
+/** A figure with its unit as a notice writes it: "23.4 kt", "9.1 kt/100 ft", "0.105" (the F-factor has no unit). */
+export function figureText(value: number, unit: string): string {
+  if (unit === 'F') return value.toFixed(3)
+  if (unit === 'report') return value > 0 ? 'reported' : 'none'
+  return `${value.toFixed(1)} ${unit}`
+}
+
 function check(kind: LimitKind, designator: string | null, value: number, limit: number, unit: LimitCheck['unit'],
   marginPct: number, where = ''): LimitCheck {
   const excess = value - limit
   const state = value > limit ? 'exceeded' : value >= limit * (1 - marginPct / 100) ? 'near' : 'within'
   const subject = `${KIND_WORDS[kind]}${designator ? ` runway ${designator}` : ''}${where}`
-  const v = unit === 'F' ? value.toFixed(3) : value.toFixed(1)
+  // The F-factor is a plain number (FAA AC 00-54): written without a unit.
+  const u = unit === 'F' ? '' : unit
+  const v = figureText(value, unit)
+  const lim = withUnit(limit, u)
   const message = state === 'exceeded'
-    ? `${subject} ${v} ${unit} exceeds the limit of ${limit} ${unit} by ${unit === 'F' ? excess.toFixed(3) : excess.toFixed(1)} ${unit}`
+    ? `${subject} ${v} exceeds the limit of ${lim} by ${figureText(excess, unit)}`
     : state === 'near'
-      ? `${subject} ${v} ${unit} is within ${marginPct}% of the limit of ${limit} ${unit}`
-      : `${subject} ${v} ${unit} is within the limit of ${limit} ${unit}`
+      ? `${subject} ${v} is within ${marginPct}% of the limit of ${lim}`
+      : `${subject} ${v} is within the limit of ${lim}`
   return { kind, designator, value, limit, unit, excess, state, message }
 }
 

@@ -8,8 +8,8 @@ import { ApiClient, signedIn } from './api'
 export const randomCode = () => `XT${Array.from({ length: 2 }, () => String.fromCharCode(65 + Math.floor(Math.random() * 26))).join('')}`
 
 /** A fresh airfield with runway ends at the given true headings (e.g. { '18': 180, '36': 360 }), variation 0. */
-export async function createTestAirfield(ends: Record<string, number>, name = 'Alert test field') {
-  const conn = await mysql.createConnection({ uri: process.env.DATABASE_URL!, timezone: 'Z' })
+export async function createTestAirfield(ends: Record<string, number>, name = 'Alert test field', databaseUrl = process.env.DATABASE_URL!) {
+  const conn = await mysql.createConnection({ uri: databaseUrl, timezone: 'Z' })
   try {
     for (let tries = 0; tries < 20; tries++) {
       const code = randomCode()
@@ -74,7 +74,7 @@ export function windProfile(dirDeg: number, speedKt: number, hours = 3) {
 }
 
 export async function mailTo(admin: ApiClient, email: string) {
-  const res = await admin.get(`/api/mailbox?to=${encodeURIComponent(email)}&reveal=1`)
+  const res = await admin.get(`/api/mailbox?to=${encodeURIComponent(email)}&reveal=1&limit=1000`)
   return res.body.messages as { subject: string, text: string, html: string | null, deliveryId: string | null }[]
 }
 

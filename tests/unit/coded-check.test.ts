@@ -46,7 +46,7 @@ describe('limit checks of the F-factor and of reported wind shear', () => {
     const arrival18 = checks.find(c => c.kind === 'f-factor-arrival' && c.designator === '18')!
     expect(arrival18.value).toBeCloseTo(analysis.runwayEnds[0]!.fFactor.arrival!.maxF, 12)
     expect(arrival18).toMatchObject({ limit: 0.1, state: 'exceeded', unit: 'F' })
-    expect(arrival18.message).toMatch(/on arrival runway 18 \(\d+-\d+ m\) 0\.\d{3} F exceeds the limit of 0\.1 F/)
+    expect(arrival18.message).toMatch(/on arrival runway 18 \(\d+-\d+ m\) 0\.\d{3} exceeds the limit of 0\.1 by/)
   })
 
   it('reported wind shear is a check of its own kind for the runway ends named only', () => {

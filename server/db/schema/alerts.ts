@@ -1,4 +1,4 @@
-import { mysqlTable, int, bigint, varchar, datetime, double, text, mediumtext, mysqlEnum, boolean, json, uniqueIndex, index } from 'drizzle-orm/mysql-core'
+import { mysqlTable, int, bigint, tinyint, varchar, datetime, double, text, mediumtext, mysqlEnum, boolean, json, uniqueIndex, index } from 'drizzle-orm/mysql-core'
 import { sql } from 'drizzle-orm'
 import { airfields } from './airfields'
 import { profiles } from './profiles'
@@ -110,15 +110,30 @@ export const alertInbox = mysqlTable('alert_inbox', {
 
 export const outboxKinds = ['alert-raised', 'alert-cleared', 'invitation', 'password-reset'] as const
 export const outboxStates = ['queued', 'sent', 'failed'] as const
+/** Claim order: alerts first, then all-clears, then invitations and resets (lower goes first). */
+export const outboxPriority: Record<(typeof outboxKinds)[number], number> = { 'alert-raised': 0, 'alert-cleared': 1, 'invitation': 2, 'password-reset': 2 }
+/** fan_seq of a row waiting for a retry: all retries share one lane, ordered by their next attempt. */
+export const OUTBOX_RETRY_LANE = 1_000_000_000
 
-// The transactional outbox: written with the change that causes it, sent by the in-app worker.
+// The transactional outbox: written with the change that causes it, sent by the in-app worker (server/domain/alerts/worker.ts).
+// A worker claims due rows in a short transaction of its own: it writes its claim token, its name and a lease and
+// moves next_attempt_at to the end of the lease, commits, then sends. A row whose lease ran out is due again.
 export const outbox = mysqlTable('outbox', {
   id: bigint('id', { mode: 'number' }).autoincrement().primaryKey(),
+  // Carried in every copy of the message (e-mail header X-Veerline-Delivery and Message-ID, push payload deliveryId):
+  // a receiver that sees the same id twice drops the copy.
+  deliveryId: varchar('delivery_id', { length: 36 }).notNull().default(sql`(uuid())`),
   kind: mysqlEnum('kind', outboxKinds).notNull(),
   channel: mysqlEnum('channel', ['email', 'push']).notNull(),
+  priority: tinyint('priority').notNull().default(2),
+  // The notice's place in its fan-out (0 for the first recipient, 1 for the next…; OUTBOX_RETRY_LANE once it failed
+  // and waits for a retry). Claims take the lowest places first, so every airfield's first notices go before the
+  // rest of a big fan-out (round-robin by place between the fan-outs that are under way).
+  fanSeq: int('fan_seq').notNull().default(0),
   // Makes enqueueing idempotent: the same notice to the same target is queued once.
   dedupeKey: varchar('dedupe_key', { length: 160 }).notNull(),
   alertId: int('alert_id').references(() => alerts.id),
+  airfieldId: int('airfield_id'),
   userId: int('user_id').references(() => users.id),
   pushSubscriptionId: int('push_subscription_id'),
   toAddress: varchar('to_address', { length: 254 }),
@@ -129,6 +144,11 @@ export const outbox = mysqlTable('outbox', {
   state: mysqlEnum('state', outboxStates).notNull().default('queued'),
   attempts: int('attempts').notNull().default(0),
   nextAttemptAt: at('next_attempt_at').notNull().default(now),
+  // The current (or last) claim: whose, under which token, until when.
+  claimToken: varchar('claim_token', { length: 36 }),
+  claimedBy: varchar('claimed_by', { length: 64 }),
+  leaseUntil: at('lease_until'),
+  firstAttemptAt: at('first_attempt_at'),
   lastError: text('last_error'),
   sentAt: at('sent_at'),
   sentBy: varchar('sent_by', { length: 64 }),
@@ -136,9 +156,29 @@ export const outbox = mysqlTable('outbox', {
   updatedAt: at('updated_at').notNull().default(now),
 }, t => [
   uniqueIndex('outbox_dedupe').on(t.dedupeKey),
-  index('outbox_due').on(t.state, t.nextAttemptAt),
+  uniqueIndex('outbox_delivery').on(t.deliveryId),
+  // The claim reads this index in order and stops after a batch: state and priority equal, then by place in the
+  // fan-out (fresh notices) or, in the retry lane, by next attempt.
+  index('outbox_due').on(t.state, t.priority, t.fanSeq, t.nextAttemptAt),
   index('outbox_alert').on(t.alertId),
 ])
+
+export const outboxAttemptOutcomes = ['sending', 'sent', 'error', 'released', 'lease-expired'] as const
+
+// Every attempt at every delivery: who claimed it, when, and how it ended. 'sending' while in flight; 'released' when a
+// stopping worker gave it back unsent; 'lease-expired' when the claimer vanished (it may or may not have gone out:
+// the receiver can tell a copy by its delivery id).
+export const outboxAttempts = mysqlTable('outbox_attempts', {
+  id: bigint('id', { mode: 'number' }).autoincrement().primaryKey(),
+  outboxId: bigint('outbox_id', { mode: 'number' }).notNull(),
+  attempt: int('attempt').notNull(),
+  claimToken: varchar('claim_token', { length: 36 }).notNull(),
+  instance: varchar('instance', { length: 64 }).notNull(),
+  claimedAt: at('claimed_at').notNull().default(now),
+  finishedAt: at('finished_at'),
+  outcome: mysqlEnum('outcome', outboxAttemptOutcomes).notNull().default('sending'),
+  error: text('error'),
+}, t => [index('outbox_attempts_outbox').on(t.outboxId, t.attempt)])
 
 // Invitation and password-reset tokens: only a SHA-256 of the token is kept; single use; expiring.
 export const userTokens = mysqlTable('user_tokens', {
@@ -155,4 +195,5 @@ export const userTokens = mysqlTable('user_tokens', {
 export type ThresholdSet = typeof thresholdSets.$inferSelect
 export type Alert = typeof alerts.$inferSelect
 export type OutboxRow = typeof outbox.$inferSelect
+export type OutboxAttempt = typeof outboxAttempts.$inferSelect
 export type PushSubscriptionRow = typeof pushSubscriptions.$inferSelect

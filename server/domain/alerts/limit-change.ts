@@ -8,19 +8,9 @@ import { recordAudit } from '../../utils/audit'
 import { evaluateAirfield, type EvaluationSummary } from './evaluate'
 import { limitSetFromRows, scopeKeyOf, valuesOf } from './limits'
 import { LIMIT_KEYS, type PartialLimits } from './limit-sets'
+import type { LimitEffectItem } from '../../../shared/limits'
 
-/** One alert a limit change raises or clears, named by airfield, runway end, kind and profile version. */
-export interface LimitEffectItem {
-  event: 'raised' | 'cleared'
-  airfieldCode: string
-  designator: string
-  kind: string
-  profileId: number
-  value: number
-  limitValue: number
-  unit: string
-  message: string
-}
+export type { LimitEffectItem }
 
 /** Thrown inside a dry run's transaction so that everything it wrote is rolled back. */
 class DryRunRollback extends Error {

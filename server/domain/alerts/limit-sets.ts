@@ -1,6 +1,6 @@
 // Pure helpers for limit sets: layering (organisation → airfield → runway end) and validation against LIMIT_RANGES.
 import { z } from 'zod'
-import { DEFAULT_LIMITS, LIMIT_RANGES, type Limits } from '../../../shared/limits'
+import { DEFAULT_LIMITS, LIMIT_RANGES, withUnit, type Limits } from '../../../shared/limits'
 
 export const LIMIT_KEYS = Object.keys(LIMIT_RANGES) as (keyof Limits)[]
 export type PartialLimits = { [K in keyof Limits]: number | null }
@@ -26,9 +26,9 @@ export function layerLimits(layers: { source: LimitSource, values: Partial<Parti
 
 const limitField = (k: keyof Limits) => {
   const r = LIMIT_RANGES[k]
-  return z.number({ invalid_type_error: `${r.label} must be a number in ${r.unit}` })
-    .min(r.min, `${r.label} must be at least ${r.min} ${r.unit}`)
-    .max(r.max, `${r.label} must be at most ${r.max} ${r.unit}`)
+  return z.number({ invalid_type_error: r.unit ? `${r.label} must be a number in ${r.unit}` : `${r.label} must be a number` })
+    .min(r.min, `${r.label} must be at least ${withUnit(r.min, r.unit)}`)
+    .max(r.max, `${r.label} must be at most ${withUnit(r.max, r.unit)}`)
 }
 
 /** Body of a limit change: the values (null = inherit, not allowed for the organisation set) and a reason. */

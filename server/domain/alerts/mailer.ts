@@ -1,4 +1,6 @@
-// Outgoing mail over SMTP with nodemailer. Defaults point at the local stand-in (scripts/standins/smtp.ts).
+// Outgoing mail over SMTP with nodemailer: one pooled transport per instance (a few long-lived connections, many
+// messages each), so a fan-out does not open a connection per message. Defaults point at the local stand-in
+// (scripts/standins/smtp.ts).
 import nodemailer, { type Transporter } from 'nodemailer'
 
 export function smtpUrl(env: NodeJS.ProcessEnv = process.env) {
@@ -17,6 +19,10 @@ function useTransport() {
       secure: url.protocol === 'smtps:',
       // The loopback stand-in speaks plain SMTP; anything else upgrades with STARTTLS unless told otherwise.
       ignoreTLS: loopback && process.env.VEERLINE_SMTP_REQUIRE_TLS !== '1',
+      pool: true,
+      // As many connections as the worker sends at once (VEERLINE_OUTBOX_EMAIL_CONCURRENCY).
+      maxConnections: Number(process.env.VEERLINE_OUTBOX_EMAIL_CONCURRENCY) || 8,
+      maxMessages: 1000,
       auth: url.username ? { user: decodeURIComponent(url.username), pass: decodeURIComponent(url.password) } : undefined,
       connectionTimeout: 5000,
       greetingTimeout: 5000,
@@ -26,8 +32,18 @@ function useTransport() {
   return transport
 }
 
-export async function sendMail(m: { to: string, subject: string, text: string, html?: string | null, headers?: Record<string, string> }) {
-  const info = await useTransport().sendMail({ from: mailFrom(), to: m.to, subject: m.subject, text: m.text, html: m.html ?? undefined, headers: m.headers })
+/** The Message-ID of a delivery: the same for every copy of it, so a receiver (or a mail client) can drop a resend. */
+export const deliveryMessageId = (deliveryId: string) => `<${deliveryId}@delivery.veerline.example>`
+
+export async function sendMail(m: { to: string, subject: string, text: string, html?: string | null, headers?: Record<string, string>, deliveryId?: string }) {
+  const info = await useTransport().sendMail({ from: mailFrom(), to: m.to, subject: m.subject, text: m.text, html: m.html ?? undefined, headers: m.headers,
+    messageId: m.deliveryId ? deliveryMessageId(m.deliveryId) : undefined })
   if (info.rejected?.length) throw new Error(`the mail server refused ${info.rejected.join(', ')}`)
   return info.messageId as string
+}
+
+/** Closes the pooled connections (at stop). */
+export function closeMail() {
+  transport?.close()
+  transport = undefined
 }

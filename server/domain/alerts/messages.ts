@@ -1,6 +1,7 @@
 // The words of every notice Veerline sends: alert raised / cleared (e-mail and push), invitation, password reset.
 // Plain functions: data in, text out. Every alert notice carries the caution.
 import { VEERLINE_CAUTION } from '../../../shared/utils/caution'
+import { figureText, KIND_WORDS, withUnit } from '../../../shared/limits'
 
 export interface AlertNoticeData {
   event: 'raised' | 'cleared'
@@ -17,22 +18,10 @@ export interface AlertNoticeData {
   appUrl: string
 }
 
-const KIND_TITLES: Record<string, string> = {
-  'crosswind': 'Crosswind',
-  'crosswind-gust': 'Gust crosswind',
-  'tailwind': 'Tailwind',
-  'tailwind-gust': 'Gust tailwind',
-  'airspeed-loss-arrival': 'Airspeed loss on arrival',
-  'airspeed-loss-departure': 'Airspeed loss on departure',
-  'layer-shear': 'Layer shear',
-  'vector-difference': 'Vector difference surface to 600 m',
-  'f-factor-arrival': 'F-factor on arrival (1 km, horizontal wind only)',
-  'f-factor-departure': 'F-factor on departure (1 km, horizontal wind only)',
-  'reported-wind-shear': 'Wind shear reported',
-}
-export const kindTitle = (kind: string) => KIND_TITLES[kind] ?? kind
+export const kindTitle = (kind: string) => (KIND_WORDS as Record<string, string>)[kind] ?? kind
 
 export const utc = (d: Date) => `${d.toISOString().slice(0, 16).replace('T', ' ')}Z`
+const limitText = (d: Pick<AlertNoticeData, 'limit' | 'unit'>) => withUnit(d.limit, d.unit === 'F' ? '' : d.unit)
 const where = (designator: string) => designator ? `runway ${designator}` : 'airfield-wide'
 const escapeHtml = (s: string) => s.replace(/[&<>"']/g, c => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', '\'': '&#39;' }[c]!))
 
@@ -42,7 +31,9 @@ export function briefingLink(d: Pick<AlertNoticeData, 'appUrl' | 'airfield' | 'p
 
 export function alertTitle(d: AlertNoticeData) {
   return d.event === 'raised'
-    ? `${d.airfield.code} ${where(d.designator)}: ${kindTitle(d.kind)} ${d.value.toFixed(1)} ${d.unit} over the ${d.limit} ${d.unit} limit`
+    ? d.unit === 'report'
+      ? `${d.airfield.code} ${where(d.designator)}: ${kindTitle(d.kind)} in a coded report`
+      : `${d.airfield.code} ${where(d.designator)}: ${kindTitle(d.kind)} ${figureText(d.value, d.unit)} over the ${limitText(d)} limit`
     : `${d.airfield.code} ${where(d.designator)}: ${kindTitle(d.kind)} all clear`
 }
 
@@ -53,9 +44,9 @@ export function renderAlertEmail(d: AlertNoticeData) {
     ['Airfield', `${d.airfield.code} ${d.airfield.name}`],
     ['Runway end', d.designator || 'airfield-wide figure'],
     ['Figure', kindTitle(d.kind)],
-    ['Value', `${d.value.toFixed(1)} ${d.unit}`],
-    ['Limit', `${d.limit} ${d.unit}`],
-    [d.excess > 0 ? 'Over the limit by' : 'Margin to the limit', `${Math.abs(d.excess).toFixed(1)} ${d.unit}`],
+    ['Value', figureText(d.value, d.unit)],
+    ['Limit', d.unit === 'report' ? 'any report of wind shear' : limitText(d)],
+    [d.excess > 0 ? 'Over the limit by' : 'Margin to the limit', d.unit === 'report' ? '-' : figureText(Math.abs(d.excess), d.unit)],
     ['Valid', `${utc(d.profile.validFrom)} to ${utc(d.profile.validTo)}`],
     ['Profile', `#${d.profile.id} (${d.profile.source})`],
   ]
@@ -93,7 +84,7 @@ export function renderAlertPush(d: AlertNoticeData) {
     airfield: d.airfield.code,
     designator: d.designator,
     kind: d.kind,
-    value: Math.round(d.value * 100) / 100,
+    value: d.unit === 'F' ? Math.round(d.value * 1000) / 1000 : Math.round(d.value * 100) / 100,
     limit: d.limit,
     unit: d.unit,
     profileId: d.profile.id,

@@ -1,14 +1,26 @@
 // The transactional outbox: notices are written with the change that causes them (same transaction) and sent later
-// by the worker (worker.ts). Enqueueing is idempotent through a unique dedupe key.
-import { and, eq, inArray, schema } from '../../utils/db'
+// by the worker (worker.ts). Enqueueing is idempotent through a unique dedupe key; many rows go in a few
+// multi-row inserts. Each notice keeps its place in its fan-out (fan_seq), by which claims take them, so a later
+// alert of another airfield goes ahead of the rest of a big fan-out.
+import { randomUUID } from 'node:crypto'
+import { and, eq, inArray, schema, sql } from '../../utils/db'
 import type { DB, Tx } from '../../utils/db'
+import { outboxPriority } from '../../db/schema'
 import { alertTitle, renderAlertEmail, renderAlertPush, type AlertNoticeData } from './messages'
 
-type NewOutbox = typeof schema.outbox.$inferInsert
+type NewOutbox = Omit<typeof schema.outbox.$inferInsert, 'deliveryId' | 'priority'>
 
-export async function enqueue(tx: Tx | DB, row: NewOutbox) {
-  // A second enqueue of the same notice (same dedupe key) changes nothing.
-  await tx.insert(schema.outbox).values(row).onDuplicateKeyUpdate({ set: { dedupeKey: row.dedupeKey } })
+const INSERT_CHUNK = 200
+
+export async function enqueue(tx: Tx | DB, rows: NewOutbox | NewOutbox[]) {
+  const list = Array.isArray(rows) ? rows : [rows]
+  for (let i = 0; i < list.length; i += INSERT_CHUNK) {
+    const values = list.slice(i, i + INSERT_CHUNK).map((row, j) => ({
+      ...row, deliveryId: randomUUID(), priority: outboxPriority[row.kind], fanSeq: i + j,
+    }))
+    // A second enqueue of the same notice (same dedupe key) changes nothing.
+    await tx.insert(schema.outbox).values(values).onDuplicateKeyUpdate({ set: { dedupeKey: sql`dedupe_key` } })
+  }
 }
 
 export async function alertNoticeData(tx: Tx | DB, alertId: number, event: 'raised' | 'cleared', appUrl: string): Promise<AlertNoticeData & { raisedCount: number, airfieldId: number }> {
@@ -45,17 +57,22 @@ export async function enqueueAlertNotices(tx: Tx, alertId: number, event: 'raise
   const kind = event === 'raised' ? 'alert-raised' as const : 'alert-cleared' as const
   const stem = `alert:${alertId}:${event}:${d.raisedCount}`
   const title = alertTitle(d).slice(0, 300)
+  const inbox: (typeof schema.alertInbox.$inferInsert)[] = []
+  const notices: NewOutbox[] = []
+  const airfieldId = d.airfieldId
   for (const { sub, user } of subs) {
-    await tx.insert(schema.alertInbox).values({ userId: user.id, alertId, event, title })
+    inbox.push({ userId: user.id, alertId, event, title })
     if (sub.email) {
-      await enqueue(tx, { kind, channel: 'email', dedupeKey: `${stem}:email:${user.id}`, alertId, userId: user.id,
+      notices.push({ kind, channel: 'email', dedupeKey: `${stem}:email:${user.id}`, alertId, airfieldId, userId: user.id,
         toAddress: user.email, subject: mail.subject, textBody: mail.text, htmlBody: mail.html })
     }
     if (sub.push) {
       for (const device of devices.filter(x => x.userId === user.id)) {
-        await enqueue(tx, { kind, channel: 'push', dedupeKey: `${stem}:push:${device.id}`, alertId, userId: user.id,
+        notices.push({ kind, channel: 'push', dedupeKey: `${stem}:push:${device.id}`, alertId, airfieldId, userId: user.id,
           pushSubscriptionId: device.id, subject: push.title, pushPayload: push })
       }
     }
   }
+  for (let i = 0; i < inbox.length; i += INSERT_CHUNK) await tx.insert(schema.alertInbox).values(inbox.slice(i, i + INSERT_CHUNK))
+  await enqueue(tx, notices)
 }

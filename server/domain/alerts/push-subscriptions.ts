@@ -80,8 +80,13 @@ export async function simulatedDeliveriesOf(userId: number) {
   let messages: { subscriptionId: string }[] = []
   let reachable = true
   try {
-    const res = await fetch(`${base}/messages`, { signal: AbortSignal.timeout(5000) })
-    messages = (await res.json()).messages
+    // Only this user's devices, newest first, one page (the stand-in keeps every message of a run).
+    if (ids.size) {
+      const query = new URLSearchParams({ subscription: [...ids].join(','), pageSize: '200' })
+      const res = await fetch(`${base}/messages?${query}`, { signal: AbortSignal.timeout(5000) })
+      messages = (await res.json()).messages
+    }
+    else await fetch(`${base}/healthz`, { signal: AbortSignal.timeout(5000) })
   }
   catch {
     reachable = false
@@ -89,6 +94,6 @@ export async function simulatedDeliveriesOf(userId: number) {
   return {
     standin: base, reachable,
     devices: simulated.map(s => ({ id: s.id, label: s.label, endpoint: s.endpoint })),
-    messages: messages.filter(m => ids.has(m.subscriptionId)).reverse(),
+    messages: messages.filter(m => ids.has(m.subscriptionId)),
   }
 }

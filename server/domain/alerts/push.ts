@@ -43,7 +43,11 @@ export function endpointRules(): EndpointRules {
   return { allowList: pushHostAllowList(), standinOrigin: standinsEnabled() ? new URL(pushStandinUrl()).origin : null }
 }
 
-export async function sendPush(db: DB, sub: { endpoint: string, p256dh: string, auth: string }, payload: unknown) {
+/**
+ * `deliveryId` also goes out as the RFC 8030 Topic (32 base64url characters: the UUID without its hyphens), so a push
+ * service that still holds an undelivered copy replaces it instead of delivering it twice.
+ */
+export async function sendPush(db: DB, sub: { endpoint: string, p256dh: string, auth: string }, payload: unknown, deliveryId?: string) {
   const verdict = checkPushEndpoint(sub.endpoint, endpointRules())
   if (!verdict.ok) throw new PushRefusedError(`not sent: ${verdict.message}`)
   const keys = await vapidKeys(db)
@@ -51,6 +55,7 @@ export async function sendPush(db: DB, sub: { endpoint: string, p256dh: string, 
     JSON.stringify(payload), {
       vapidDetails: { subject: vapidSubject(), publicKey: keys.publicKey, privateKey: keys.privateKey },
       TTL: 3600, urgency: 'high', contentEncoding: 'aes128gcm',
+      ...(deliveryId ? { topic: deliveryId.replace(/-/g, '') } : {}),
     })
   const status = await postOnce(verdict.url, verdict.standin, details.headers as Record<string, string>, details.body ? Buffer.from(details.body) : undefined)
   if (status.code === 404 || status.code === 410) throw new PushGoneError(`the push service no longer knows this subscription (${status.code})`)

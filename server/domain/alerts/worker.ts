@@ -1,66 +1,210 @@
-// The outbox worker: claims due rows with SELECT … FOR UPDATE SKIP LOCKED (so two app instances never take the same
-// row), sends each while holding its lock, and records the outcome in the same transaction.
-import { eq, inArray, schema, sql, transaction } from '../../utils/db'
-import type { DB, Tx } from '../../utils/db'
+// The outbox worker of one app instance: claims a bounded batch (claim.ts), sends it outside any transaction with a
+// bound on concurrent sends per channel (e-mail over a pooled SMTP transport, pushes in parallel), writes each result
+// back as it comes, and claims again while there is work. On stop (SIGTERM: Nitro's close hook) it claims nothing
+// more, lets the sends in flight finish, gives the rest of its batch back and records all of it before it returns.
+import { eq, schema } from '../../utils/db'
+import type { DB } from '../../utils/db'
 import type { OutboxRow } from '../../db/schema'
-import { nextDelayMs, retryPolicy, type RetryPolicy } from './backoff'
+import { nextDelayMs, workerTiming, type WorkerTiming } from './backoff'
+import { claimDue, recordOutcomes, type Outcome } from './claim'
+import { writesSettled } from './give-way'
 import { sendMail } from './mailer'
 import { PushGoneError, PushRefusedError, sendPush } from './push'
 
 export type Senders = {
   email: (row: OutboxRow) => Promise<void>
-  push: (row: OutboxRow, tx: Tx) => Promise<void>
+  push: (row: OutboxRow) => Promise<void>
 }
 
 export function defaultSenders(db: DB): Senders {
   return {
     email: async (row) => {
       await sendMail({ to: row.toAddress!, subject: row.subject ?? '(no subject)', text: row.textBody ?? '', html: row.htmlBody,
-        headers: { 'X-Veerline-Delivery': String(row.id), 'X-Veerline-Kind': row.kind } })
+        deliveryId: row.deliveryId, headers: { 'X-Veerline-Delivery': row.deliveryId, 'X-Veerline-Kind': row.kind } })
     },
-    push: async (row, tx) => {
-      const [device] = await tx.select().from(schema.pushSubscriptions).where(eq(schema.pushSubscriptions.id, row.pushSubscriptionId ?? 0))
+    push: async (row) => {
+      const [device] = await db.select().from(schema.pushSubscriptions).where(eq(schema.pushSubscriptions.id, row.pushSubscriptionId ?? 0))
       if (!device) throw new PushGoneError('the push subscription was removed')
       try {
-        await sendPush(db, device, { ...row.pushPayload, deliveryId: row.id })
+        await sendPush(db, device, { ...row.pushPayload, deliveryId: row.deliveryId }, row.deliveryId)
       }
       catch (err) {
-        if (err instanceof PushGoneError) await tx.delete(schema.pushSubscriptions).where(eq(schema.pushSubscriptions.id, device.id))
+        if (err instanceof PushGoneError) await db.delete(schema.pushSubscriptions).where(eq(schema.pushSubscriptions.id, device.id))
         throw err
       }
     },
   }
 }
 
-/** One claim-and-send round; returns how many rows it handled (0 = nothing due). */
-export async function runOutboxOnce(db: DB, senders: Senders, instanceId: string, policy: RetryPolicy = retryPolicy(), batch = 5) {
-  // It sends inside the transaction, so a conflict is not repeated here (attempts: 1): the rows stay due.
-  return transaction(async (tx) => {
-    const [claimed] = await tx.execute(sql`SELECT id FROM outbox WHERE state = 'queued' AND next_attempt_at <= CURRENT_TIMESTAMP(3)
-      ORDER BY id LIMIT ${batch} FOR UPDATE SKIP LOCKED`) as unknown as [{ id: number }[]]
-    if (!claimed.length) return 0
-    const rows = await tx.select().from(schema.outbox).where(inArray(schema.outbox.id, claimed.map(r => Number(r.id))))
-    for (const row of rows) {
-      const attempts = row.attempts + 1
-      try {
-        if (row.channel === 'email') await senders.email(row)
-        else await senders.push(row, tx)
-        const redacted = row.kind === 'invitation' || row.kind === 'password-reset'
-        await tx.update(schema.outbox).set({
-          state: 'sent', attempts, sentAt: new Date(), sentBy: instanceId, lastError: null, updatedAt: new Date(),
-          // A sign-in link is not kept once it is on its way: only its hash stays, in user_tokens.
-          ...(redacted ? { textBody: '(link removed after sending)', htmlBody: null } : {}),
-        }).where(eq(schema.outbox.id, row.id))
-      }
-      catch (err) {
-        const message = (err instanceof Error ? err.message : String(err)).slice(0, 1000)
-        const delay = err instanceof PushGoneError || err instanceof PushRefusedError ? null : nextDelayMs(attempts, policy)
-        await tx.update(schema.outbox).set({
-          attempts, lastError: message, updatedAt: new Date(),
-          ...(delay == null ? { state: 'failed' as const } : { nextAttemptAt: new Date(Date.now() + delay) }),
-        }).where(eq(schema.outbox.id, row.id))
+export interface WorkerOptions {
+  instanceId: string
+  batchSize: number
+  concurrency: { email: number, push: number }
+  intervalMs: number
+  /** Longest a new send waits for this instance's write requests to be answered (give-way.ts). */
+  giveWayMs: number
+  timing: WorkerTiming
+}
+
+export function workerOptions(instanceId: string, env: NodeJS.ProcessEnv = process.env): WorkerOptions {
+  const int = (name: string, fallback: number) => {
+    const v = Number(env[name])
+    return Number.isInteger(v) && v > 0 ? v : fallback
+  }
+  return {
+    instanceId,
+    batchSize: int('VEERLINE_OUTBOX_BATCH', 50),
+    concurrency: { email: int('VEERLINE_OUTBOX_EMAIL_CONCURRENCY', 8), push: int('VEERLINE_OUTBOX_PUSH_CONCURRENCY', 16) },
+    intervalMs: int('VEERLINE_OUTBOX_INTERVAL_MS', 250),
+    giveWayMs: int('VEERLINE_OUTBOX_GIVE_WAY_MS', 200),
+    timing: workerTiming(env),
+  }
+}
+
+/** A bound on concurrent sends: `acquire` resolves once one of `limit` slots is free. */
+class Slots {
+  private waiters: (() => void)[] = []
+  constructor(private free: number) {}
+  async acquire() {
+    if (this.free > 0) {
+      this.free--
+      return
+    }
+    await new Promise<void>(r => this.waiters.push(r))
+  }
+
+  release() {
+    const next = this.waiters.shift()
+    if (next) next()
+    else this.free++
+  }
+}
+
+export class OutboxWorker {
+  private stopping = false
+  private loop: Promise<void> | null = null
+  private timer: ReturnType<typeof setTimeout> | null = null
+  private pending: Outcome[] = []
+  private flushing: Promise<void> | null = null
+  lastError: string | null = null
+
+  constructor(private db: DB, private senders: Senders, readonly opts: WorkerOptions) {}
+
+  start() {
+    this.schedule(0)
+  }
+
+  private schedule(delayMs: number) {
+    if (this.stopping) return
+    this.timer = setTimeout(() => {
+      this.timer = null
+      this.loop = this.run().finally(() => {
+        this.loop = null
+        this.schedule(this.opts.intervalMs)
+      })
+    }, delayMs)
+    this.timer.unref?.()
+  }
+
+  /**
+   * Claims and sends batch after batch while full batches come back (bounded per call), then rests. Each channel
+   * starts the rows of a claim as its slots free up, and the next claim is made as soon as every row of this one has
+   * started: the send lanes stay busy over the tail of a batch instead of waiting for its slowest send. At most
+   * one batch waits for a slot (besides the sends in flight), so a later alert of another airfield is at most one
+   * batch behind.
+   */
+  private async run() {
+    const slots = { email: new Slots(this.opts.concurrency.email), push: new Slots(this.opts.concurrency.push) }
+    const inFlight = new Set<Promise<void>>()
+    try {
+      for (let round = 0; round < 1000 && !this.stopping; round++) {
+        const { token, rows } = await claimDue(this.db, this.opts.instanceId, { batchSize: this.opts.batchSize, leaseMs: this.opts.timing.leaseMs })
+        if (!rows.length) break
+        await Promise.all((['email', 'push'] as const).map(async (ch) => {
+          for (const row of rows.filter(r => r.channel === ch)) {
+            // A filing (or another write) being answered by this instance goes first (give-way.ts).
+            await writesSettled(this.opts.giveWayMs)
+            await slots[ch].acquire()
+            if (this.stopping) {
+              // Stopping: what has not started goes back to the queue, unsent and recorded as given back.
+              slots[ch].release()
+              this.record([{ row, token, outcome: 'released' }])
+              continue
+            }
+            const send: Promise<void> = this.sendOne(row, token).finally(() => {
+              slots[ch].release()
+              inFlight.delete(send)
+            })
+            inFlight.add(send)
+          }
+        }))
+        if (rows.length < this.opts.batchSize) break
       }
     }
-    return rows.length
-  }, { db, attempts: 1 })
+    catch (err) {
+      this.lastError = (err as Error).message
+      console.error('[veerline] outbox worker:', this.lastError)
+    }
+    finally {
+      await Promise.all(inFlight)
+      await this.flush()
+    }
+  }
+
+  private async sendOne(row: OutboxRow, token: string) {
+    try {
+      await (row.channel === 'email' ? this.senders.email(row) : this.senders.push(row))
+      this.record([{ row, token, outcome: 'sent', instanceId: this.opts.instanceId }])
+    }
+    catch (err) {
+      const error = err instanceof Error ? err.message : String(err)
+      const sinceFirst = Date.now() - (row.firstAttemptAt ?? new Date()).getTime()
+      const retryInMs = err instanceof PushGoneError || err instanceof PushRefusedError ? null : nextDelayMs(row.attempts, sinceFirst, this.opts.timing)
+      this.record([{ row, token, outcome: 'error', error, retryInMs }])
+    }
+  }
+
+  /** Queues results and writes them at once, or with the next write when one is already going. */
+  private record(outcomes: Outcome[]) {
+    this.pending.push(...outcomes)
+    if (!this.flushing) this.flushing = this.drain()
+  }
+
+  private async drain() {
+    try {
+      while (this.pending.length) {
+        const batch = this.pending.splice(0, 100)
+        for (let tries = 0; ; tries++) {
+          try {
+            await recordOutcomes(this.db, batch)
+            break
+          }
+          catch (err) {
+            // The database went away for a moment: keep the results and try again (bounded); the lease covers it.
+            if (tries >= 20) {
+              console.error('[veerline] outbox results not recorded:', (err as Error).message)
+              break
+            }
+            await new Promise(r => setTimeout(r, 250))
+          }
+        }
+      }
+    }
+    finally {
+      this.flushing = null
+    }
+  }
+
+  async flush() {
+    while (this.flushing) await this.flushing
+  }
+
+  /** Stops claiming, waits for the sends in flight, gives back what was not started and records everything. */
+  async stop() {
+    this.stopping = true
+    if (this.timer) clearTimeout(this.timer)
+    this.timer = null
+    if (this.loop) await this.loop
+    await this.flush()
+  }
 }

@@ -1,6 +1,5 @@
 import { describe, expect, it } from 'vitest'
 import { planAlerts, type ProfileFacts, type StoredAlert } from '../../../server/domain/alerts/plan'
-import { nextDelayMs } from '../../../server/domain/alerts/backoff'
 import { layerLimits } from '../../../server/domain/alerts/limit-sets'
 import { DEFAULT_LIMITS, type LimitCheck } from '../../../shared/limits'
 
@@ -57,15 +56,6 @@ describe('alert planning', () => {
       .toEqual([{ action: 'clear', alertId: 1, reason: 'All clear: the profile was withdrawn' }])
     expect(planAlerts({ now, candidates: [], existing: [stored({})], profiles: facts({ id: 10, status: 'active', supersededById: null, validTo: now }) }))
       .toEqual([{ action: 'expire', alertId: 1 }])
-  })
-})
-
-describe('outbox retry backoff', () => {
-  const policy = { baseMs: 1000, maxMs: 60_000, maxAttempts: 8 }
-  it('doubles from the base, caps, and gives up after the last attempt', () => {
-    // Exponential backoff base·2^(n-1) (common practice).
-    expect([1, 2, 3, 4, 5, 6, 7].map(n => nextDelayMs(n, policy))).toEqual([1000, 2000, 4000, 8000, 16000, 32000, 60000])
-    expect(nextDelayMs(8, policy)).toBeNull()
   })
 })
 
