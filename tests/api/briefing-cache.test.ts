@@ -113,6 +113,9 @@ describe('the cache never serves a stale briefing after an edit on another insta
     const { code, pilot } = await fieldWithProfile()
     const before = (await pilot.get(`/api/airfields/${code}/briefing`)).body.briefing
     expect(end(before, '18').trueHeadingDeg).toBe(180)
+    // The page's own request (one end in detail) is kept under its own key: it must follow the edit too.
+    const pageBefore = await pilot.get(`/api/airfields/${code}/briefing?end=18`)
+    expect(pageBefore.body.briefing.runwayEnds[0].trueHeadingDeg).toBe(180)
     const detail = await viaSecond.get(`/api/airfields/${code}`)
     const runwayId = detail.body.airfield.runways[0].id
     const edit = await viaSecond.patch(`/api/airfields/${code}/runways/${runwayId}`, {
@@ -121,6 +124,9 @@ describe('the cache never serves a stale briefing after an edit on another insta
     expect(edit.status).toBe(200)
     const after = (await pilot.get(`/api/airfields/${code}/briefing`)).body.briefing
     expect(end(after, '18').trueHeadingDeg).toBe(175)
+    const pageAfter = await pilot.get(`/api/airfields/${code}/briefing?end=18`, { 'if-none-match': pageBefore.headers.get('etag')! })
+    expect(pageAfter.status).toBe(200)
+    expect(pageAfter.body.briefing.runwayEnds[0].trueHeadingDeg).toBe(175)
     // Surface wind 200° at 12 kt on a heading of 175°: headwind = 12·cos 25° (trade formula, as in briefing.test.ts).
     expect(end(after, '18').surface.headwindKt).toBeCloseTo(12 * Math.cos(25 * Math.PI / 180), 1)
   })
