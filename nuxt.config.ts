@@ -1,8 +1,11 @@
 // Veerline: Nuxt 4 with the source at the project root (no app/ folder).
 
-/** Components whose code the briefing page loads when they come into view, not up front (see hooks below). */
-const LOADED_WHEN_VISIBLE = ['BriefingChange.vue', 'BriefingOtherEnds.vue', 'BriefingRunwayCard.vue', 'BriefingShear.vue',
-  'BriefingProfileHeader.vue', 'BriefingConvective.vue', 'BriefingReceipts.vue', 'TrendChart.vue']
+/**
+ * Components whose code the briefing page loads when they come into view, not up front (see hooks below). The runway
+ * card and the read receipt stay up front: a tap on the polar display or on "Mark … read" must work at once.
+ */
+const LOADED_WHEN_VISIBLE = ['BriefingChange.vue', 'BriefingOtherEnds.vue', 'BriefingShear.vue',
+  'BriefingProfileHeader.vue', 'BriefingConvective.vue', 'TrendChart.vue']
 export default defineNuxtConfig({
   modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', 'nuxt-auth-utils', 'nuxt-security', '@nuxt/eslint'],
   devtools: { enabled: false },
@@ -55,7 +58,9 @@ export default defineNuxtConfig({
         for (const [key, chunk] of Object.entries(manifest)) {
           if (late.has(key) || chunk.isEntry || !key.endsWith('.js')) continue
           const importers = Object.keys(manifest).filter(k => manifest[k]!.imports?.includes(key))
-          if (importers.length && importers.every(k => late.has(k))) {
+          // A page's own chunk is loaded by the router (a dynamic import of the entry): never late.
+          const loadedByOthers = Object.keys(manifest).some(k => !late.has(k) && manifest[k]!.dynamicImports?.includes(key))
+          if (importers.length && !loadedByOthers && importers.every(k => late.has(k))) {
             late.add(key)
             grew = true
           }
