@@ -1,4 +1,11 @@
 // Veerline: Nuxt 4 with the source at the project root (no app/ folder).
+
+/**
+ * Components whose code the briefing page loads when they come into view, not up front (see hooks below). The runway
+ * card and the read receipt stay up front: a tap on the polar display or on "Mark … read" must work at once.
+ */
+const LOADED_WHEN_VISIBLE = ['BriefingChange.vue', 'BriefingOtherEnds.vue', 'BriefingShear.vue',
+  'BriefingProfileHeader.vue', 'BriefingConvective.vue', 'TrendChart.vue']
 export default defineNuxtConfig({
   modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', 'nuxt-auth-utils', 'nuxt-security', '@nuxt/eslint'],
   devtools: { enabled: false },
@@ -41,6 +48,26 @@ export default defineNuxtConfig({
   typescript: { strict: true, typeCheck: false },
   telemetry: false,
   hooks: {
+    // The briefing page's parts below its first screen (Lazy… with hydrate-on-visible in pages/briefings/[code].vue)
+    // are rendered on the server as usual but their code is not preloaded: it loads when the part scrolls into view.
+    // So is a chunk that only such parts import (VueUse's element helpers, the polar geometry).
+    'build:manifest'(manifest) {
+      const late = new Set(Object.keys(manifest).filter(k => LOADED_WHEN_VISIBLE.some(f => manifest[k]!.src?.endsWith(f))))
+      for (let grew = true; grew;) {
+        grew = false
+        for (const [key, chunk] of Object.entries(manifest)) {
+          if (late.has(key) || chunk.isEntry || !key.endsWith('.js')) continue
+          const importers = Object.keys(manifest).filter(k => manifest[k]!.imports?.includes(key))
+          // A page's own chunk is loaded by the router (a dynamic import of the entry): never late.
+          const loadedByOthers = Object.keys(manifest).some(k => !late.has(k) && manifest[k]!.dynamicImports?.includes(key))
+          if (importers.length && !loadedByOthers && importers.every(k => late.has(k))) {
+            late.add(key)
+            grew = true
+          }
+        }
+      }
+      for (const key of late) manifest[key]!.preload = false
+    },
     // The API route table for server/middleware/api-methods.ts (405 with Allow for a known path and a method it lacks).
     'nitro:init'(nitro) {
       // Both the scanned route files and the handlers modules add (nuxt-auth-utils' /api/_auth/session).

@@ -23,7 +23,7 @@ const OUT_DIR = process.env.VEERLINE_BENCH_OUT ?? '.data/bench'
 const DEEP = benchCode(0) // every profile with 5,000 levels
 const SHALLOW = benchCode(1) // 20 levels
 
-type Row = { phase: string, route: string, path: string, reqPerS: number, p50Ms: number, p99Ms: number, non2xx: number, errors: number, ratioToLive: number }
+type Row = { phase: string, route: string, path: string, reqPerS: number, p50Ms: number, p99Ms: number, non2xx: number, errors: number, bytesPerReq: number, ratioToLive: number }
 
 async function signIn(email: string, password: string) {
   const res = await fetch(`${BASE}/api/session`, { method: 'POST', headers: { 'content-type': 'application/json', 'origin': BASE }, body: JSON.stringify({ email, password }) })
@@ -33,12 +33,20 @@ async function signIn(email: string, password: string) {
   return cookie
 }
 
+// What a browser's fetch sends with every request (every current browser accepts gzip); the server compresses
+// the larger JSON answers for it. VEERLINE_BENCH_ACCEPT_ENCODING='' measures uncompressed answers.
+const ACCEPT_ENCODING = process.env.VEERLINE_BENCH_ACCEPT_ENCODING ?? 'gzip, deflate, br'
+const headersFor = (cookie: string | null): Record<string, string> => ({
+  ...(cookie ? { cookie } : {}), ...(ACCEPT_ENCODING ? { 'accept-encoding': ACCEPT_ENCODING } : {}),
+})
+
 async function load(path: string, cookie: string | null, seconds: number) {
   const r = await autocannon({
     url: `${BASE}${path}`, connections: CONNECTIONS, duration: seconds,
-    headers: cookie ? { cookie } : {},
+    headers: headersFor(cookie),
   })
-  return { reqPerS: r.requests.average, p50Ms: r.latency.p50, p99Ms: r.latency.p99, non2xx: r.non2xx, errors: r.errors + r.timeouts }
+  const bytesPerReq = r.requests.total ? r.throughput.total / r.requests.total : 0
+  return { reqPerS: r.requests.average, p50Ms: r.latency.p50, p99Ms: r.latency.p99, non2xx: r.non2xx, errors: r.errors + r.timeouts, bytesPerReq }
 }
 
 async function phase(name: string, cookie: string, routes: [string, string, boolean][]): Promise<Row[]> {
@@ -46,14 +54,14 @@ async function phase(name: string, cookie: string, routes: [string, string, bool
   let live = 0
   for (const [route, path, signed] of routes) {
     const c = signed ? cookie : null
-    const first = await fetch(`${BASE}${path}`, { headers: c ? { cookie: c } : {} })
+    const first = await fetch(`${BASE}${path}`, { headers: headersFor(c) })
     if (first.status !== 200) throw new Error(`${path} answered ${first.status}: ${(await first.text()).slice(0, 300)}`)
     await load(path, c, 1) // warm-up, not counted
     const m = await load(path, c, SECONDS)
     if (route === 'liveness') live = m.reqPerS
     const row = { phase: name, route, path, ...m, ratioToLive: live ? m.reqPerS / live : Number.NaN }
     rows.push(row)
-    console.log(`  ${name.padEnd(13)} ${route.padEnd(22)} ${m.reqPerS.toFixed(0).padStart(7)} req/s  p50 ${String(m.p50Ms).padStart(4)} ms  p99 ${String(m.p99Ms).padStart(5)} ms  x${row.ratioToLive.toFixed(3)}${m.non2xx || m.errors ? `  (${m.non2xx} non-2xx, ${m.errors} errors)` : ''}`)
+    console.log(`  ${name.padEnd(13)} ${route.padEnd(22)} ${m.reqPerS.toFixed(0).padStart(7)} req/s  p50 ${String(m.p50Ms).padStart(4)} ms  p99 ${String(m.p99Ms).padStart(5)} ms  x${row.ratioToLive.toFixed(3)}  ${kb(m.bytesPerReq).padStart(9)}/answer${m.non2xx || m.errors ? `  (${m.non2xx} non-2xx, ${m.errors} errors)` : ''}`)
   }
   return rows
 }
@@ -82,7 +90,7 @@ const verdict = (ok: boolean) => (ok ? 'pass' : 'FAIL')
 async function main() {
   const connection = await mysql.createConnection({ uri: process.env.DATABASE_URL!, timezone: 'Z' })
   const db = drizzle(connection, { schema, mode: 'default' })
-  console.log(`[bench:http] ${CONNECTIONS} connections, ${SECONDS} s per route (after 1 s warm-up), ${cpus().length} cores, load average ${loadavg().map(x => x.toFixed(2)).join(' ')}`)
+  console.log(`[bench:http] ${CONNECTIONS} connections, ${SECONDS} s per route (after 1 s warm-up), Accept-Encoding: ${ACCEPT_ENCODING || '(none)'}, ${cpus().length} cores, load average ${loadavg().map(x => x.toFixed(2)).join(' ')}`)
 
   await growTo(db, 7)
   const cookie = await signIn('pilot@veerline.example', 'veerline-demo')
@@ -92,8 +100,11 @@ async function main() {
     ['session', '/api/session', true],
     ['airfield list', '/api/airfields', true],
     ['home list', '/api/briefings', true],
-    [`briefing ${SHALLOW_LEVELS} levels`, `/api/airfields/${SHALLOW}/briefing`, true],
-    [`briefing ${DEEP_LEVELS} levels`, `/api/airfields/${DEEP}/briefing`, true],
+    // As the briefing page asks it: the end it shows in detail (?end=best before it knows one), the others ranked.
+    [`briefing ${SHALLOW_LEVELS} levels`, `/api/airfields/${SHALLOW}/briefing?end=best`, true],
+    [`briefing ${DEEP_LEVELS} levels`, `/api/airfields/${DEEP}/briefing?end=best`, true],
+    // Every end in detail (the API's default, for feeds): shown, no target.
+    [`briefing ${SHALLOW_LEVELS} levels, every end`, `/api/airfields/${SHALLOW}/briefing`, true],
   ]
   const rows = await phase('10 airfields', cookie, routes())
   const t0 = Date.now()
@@ -104,8 +115,11 @@ async function main() {
   await connection.end()
 
   // Sizes
-  const json = await fetch(`${BASE}/api/airfields/${DEEP}/briefing`, { headers: { cookie } })
-  const jsonBytes = Buffer.byteLength(await json.text())
+  // fetch() undoes the gzip: these are the JSON texts themselves; the gzip sizes are measured beside them.
+  const textOf = async (path: string) => (await fetch(`${BASE}${path}`, { headers: { cookie } })).text()
+  const jsonText = await textOf(`/api/airfields/${DEEP}/briefing`)
+  const jsonBytes = Buffer.byteLength(jsonText)
+  const pageJson = await textOf(`/api/airfields/${DEEP}/briefing?end=best`)
   const page = await upFrontJs(BASE, `/briefings/${DEEP}`, cookie)
   const bare = BARE ? await upFrontJs(BARE, '/', null) : null
 
@@ -113,8 +127,8 @@ async function main() {
   const small = '10 airfields'
   const big = `${n} airfields`
   const session = get(big, 'session')
-  console.log('\n| phase | route | req/s | p50 ms | p99 ms | x liveness | target | result |')
-  console.log('| --- | --- | --- | --- | --- | --- | --- | --- |')
+  console.log('\n| phase | route | req/s | p50 ms | p99 ms | x liveness | KB/answer | target | result |')
+  console.log('| --- | --- | --- | --- | --- | --- | --- | --- | --- |')
   const checks: boolean[] = []
   for (const r of rows) {
     let target = ''
@@ -124,13 +138,13 @@ async function main() {
       target = '≥ 0.25x liveness'
       ok = r.ratioToLive >= 0.25
     }
-    else if (!['liveness', 'readiness (DB ping)'].includes(r.route)) {
+    else if (!['liveness', 'readiness (DB ping)'].includes(r.route) && !r.route.endsWith('every end')) {
       target = '≥ 0.7x session, p99 ≤ 25 ms'
       ok = r.reqPerS >= 0.7 * phaseSession.reqPerS && r.p99Ms <= 25
     }
     if (r.non2xx || r.errors) ok = false
     if (ok !== null) checks.push(ok)
-    console.log(`| ${r.phase} | ${r.route} | ${r.reqPerS.toFixed(0)} | ${r.p50Ms} | ${r.p99Ms} | ${r.ratioToLive.toFixed(3)} | ${target} | ${ok === null ? '' : verdict(ok)} |`)
+    console.log(`| ${r.phase} | ${r.route} | ${r.reqPerS.toFixed(0)} | ${r.p50Ms} | ${r.p99Ms} | ${r.ratioToLive.toFixed(3)} | ${(r.bytesPerReq / 1024).toFixed(1)} | ${target} | ${ok === null ? '' : verdict(ok)} |`)
   }
   console.log('\n| flat in | compared (each as x liveness of its phase) | ratio | target | result |')
   console.log('| --- | --- | --- | --- | --- |')
@@ -149,9 +163,10 @@ async function main() {
   console.log('| --- | --- | --- | --- |')
   const size = (label: string, value: string, target: string, ok: boolean | null) => {
     if (ok !== null) checks.push(ok)
-    console.log(`| ${label} | ${value} | ${target} | ${ok === null ? 'not measured' : verdict(ok)} |`)
+    console.log(`| ${label} | ${value} | ${target} | ${ok === null ? (target ? 'not measured' : '') : verdict(ok)} |`)
   }
-  size(`briefing JSON, ${DEEP_LEVELS} levels`, kb(jsonBytes), '≤ 300 KB', jsonBytes <= 300 * 1024)
+  size(`briefing JSON, ${DEEP_LEVELS} levels, every end`, `${kb(jsonBytes)} (${kb(gzipSync(jsonText).length)} gzip)`, '≤ 300 KB', jsonBytes <= 300 * 1024)
+  size(`briefing JSON, ${DEEP_LEVELS} levels, as the page asks (?end=best)`, `${kb(Buffer.byteLength(pageJson))} (${kb(gzipSync(pageJson).length)} gzip)`, '', null)
   size(`briefing page HTML, ${DEEP_LEVELS} levels`, kb(page.htmlBytes), '≤ 500 KB', page.htmlBytes <= 500 * 1024)
   size('briefing page JS up front (gzip)', `${kb(page.gzipBytes)} in ${page.files} files (${kb(page.rawBytes)} raw)`, '', null)
   if (bare) size('bare Nuxt page JS up front (gzip)', `${kb(bare.gzipBytes)} in ${bare.files} files`, '', null)
@@ -160,7 +175,7 @@ async function main() {
 
   mkdirSync(OUT_DIR, { recursive: true })
   const file = `${OUT_DIR}/http-${new Date().toISOString().replace(/[:.]/g, '-')}.json`
-  writeFileSync(file, JSON.stringify({ rows, sizes: { jsonBytes, page, bare }, loadavg: loadavg() }, null, 2))
+  writeFileSync(file, JSON.stringify({ rows, sizes: { jsonBytes, pageJsonBytes: Buffer.byteLength(pageJson), page, bare }, acceptEncoding: ACCEPT_ENCODING, loadavg: loadavg() }, null, 2))
   console.log(`[bench:http] figures kept in ${file}`)
 }
 

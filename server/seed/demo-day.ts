@@ -4,9 +4,9 @@
  * key: a profile of the same airfield, validity and source already there (filed, superseded or withdrawn) is left
  * alone, so a restart, a second instance or the next check of the day files nothing twice. Demo only.
  */
-import { and, eq, sql } from 'drizzle-orm'
+import { and, eq } from 'drizzle-orm'
 import * as schema from '../db/schema'
-import { transaction, type DB } from '../utils/db'
+import { takeTurn, transaction, type DB } from '../utils/db'
 import { fileProfile } from '../domain/profiles/filing'
 import { DEMO_AIRFIELDS, demoDayStart } from './demo-airfields'
 
@@ -43,12 +43,10 @@ export async function fileDemoDay(db: DB, dayStart: Date): Promise<DemoDayResult
       const validTo = new Date(validFrom.getTime() + 3 * 3600_000)
       try {
         const filed = await transaction(async (tx) => {
-          // A write to this slot's marker row is the lock: a second instance on the same database node waits here,
+          // A write to this slot's turn row is the lock: a second instance on the same database node waits here,
           // one on another Galera node conflicts at COMMIT and runs again; either then finds the profile and leaves it.
           // (A row lock alone is local to one node.)
-          const marker = `demo:${a.code}:${validFrom.toISOString()}:${slot.source}`.slice(0, 64)
-          await tx.insert(schema.appMeta).values({ key: marker, value: result.day })
-            .onDuplicateKeyUpdate({ set: { updatedAt: sql`CURRENT_TIMESTAMP(3)` } })
+          await takeTurn(tx, `demo:${a.code}:${validFrom.toISOString()}:${slot.source}`)
           const [airfield] = await tx.select().from(schema.airfields).where(eq(schema.airfields.code, a.code))
           if (!airfield) throw new Error(`the demo airfield ${a.code} does not exist`)
           const p = schema.profiles

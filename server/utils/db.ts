@@ -1,5 +1,5 @@
 import { drizzle } from 'drizzle-orm/mysql2'
-import { is } from 'drizzle-orm'
+import { is, sql } from 'drizzle-orm'
 import { MySqlTransaction } from 'drizzle-orm/mysql-core'
 import mysql from 'mysql2/promise'
 import * as schema from '../db/schema'
@@ -290,4 +290,18 @@ export async function transaction<T>(work: (tx: Tx) => Promise<T>, options: Tran
   throw new DatabaseUnavailableError(isRetryableConflict(last)
     ? `The database stayed busy with conflicting changes after ${attempts} attempts`
     : 'The database does not answer', { cause: last })
+}
+
+/**
+ * "One at a time" for each key, also across the nodes of a Galera cluster: writes the key's turn row (write_turns)
+ * in the caller's transaction. A second transaction of the same key waits on the row lock on the same node; on
+ * another node it is aborted at COMMIT by certification (1213) and transaction() runs it again after the first.
+ * A row lock alone (SELECT … FOR UPDATE) is local to one node. Keys are written in sorted order (no deadlock
+ * between two callers of the same keys).
+ */
+export async function takeTurn(tx: Tx, ...keys: string[]) {
+  const sorted = [...new Set(keys)].sort()
+  if (!sorted.length) return
+  await tx.insert(schema.writeTurns).values(sorted.map(turnKey => ({ turnKey: turnKey.slice(0, 330), seq: 1 })))
+    .onDuplicateKeyUpdate({ set: { seq: sql`${schema.writeTurns.seq} + 1` } })
 }

@@ -11,6 +11,10 @@ export const briefingQuerySchema = z.object({
   // 'trade' (the default): figures rounded to the trade's precision and levels thinned for display;
   // 'full': every level and every figure as the engine computed it.
   precision: z.enum(['trade', 'full'], { errorMap: () => ({ message: 'must be trade or full' }) }).optional(),
+  // Which runway ends carry their detailed figures: 'all' (the default), or the end a page shows (a designator such
+  // as 27L; one the airfield lacks, or 'best', gives the best-ranked end). The ranking and verdict list every end.
+  end: z.string().trim().regex(/^(all|best|(0[1-9]|[12]\d|3[0-6])[LCR]?)$/i, 'must be a runway end designator such as 09 or 27L, best or all')
+    .transform(s => (/^(all|best)$/i.test(s) ? s.toLowerCase() : s.toUpperCase())).optional(),
 }).strict()
 
 export const trendQuerySchema = z.object({

@@ -113,6 +113,9 @@ describe('the cache never serves a stale briefing after an edit on another insta
     const { code, pilot } = await fieldWithProfile()
     const before = (await pilot.get(`/api/airfields/${code}/briefing`)).body.briefing
     expect(end(before, '18').trueHeadingDeg).toBe(180)
+    // The page's own request (one end in detail) is kept under its own key: it must follow the edit too.
+    const pageBefore = await pilot.get(`/api/airfields/${code}/briefing?end=18`)
+    expect(pageBefore.body.briefing.runwayEnds[0].trueHeadingDeg).toBe(180)
     const detail = await viaSecond.get(`/api/airfields/${code}`)
     const runwayId = detail.body.airfield.runways[0].id
     const edit = await viaSecond.patch(`/api/airfields/${code}/runways/${runwayId}`, {
@@ -121,6 +124,9 @@ describe('the cache never serves a stale briefing after an edit on another insta
     expect(edit.status).toBe(200)
     const after = (await pilot.get(`/api/airfields/${code}/briefing`)).body.briefing
     expect(end(after, '18').trueHeadingDeg).toBe(175)
+    const pageAfter = await pilot.get(`/api/airfields/${code}/briefing?end=18`, { 'if-none-match': pageBefore.headers.get('etag')! })
+    expect(pageAfter.status).toBe(200)
+    expect(pageAfter.body.briefing.runwayEnds[0].trueHeadingDeg).toBe(175)
     // Surface wind 200° at 12 kt on a heading of 175°: headwind = 12·cos 25° (trade formula, as in briefing.test.ts).
     expect(end(after, '18').surface.headwindKt).toBeCloseTo(12 * Math.cos(25 * Math.PI / 180), 1)
   })
@@ -162,5 +168,74 @@ describe('the cache never serves a stale briefing after an edit on another insta
     const asked = (await pilot.get(`/api/airfields/${code}/briefing?profile=${profileId}`)).body.briefing
     expect(asked.profile.status).toBe('withdrawn')
     expect(asked.profile.withdrawnReason).toBe('Cache test: sensor fault')
+  })
+})
+
+describe('the briefing as the page asks it: one runway end in detail', () => {
+  it('?end= details that end only, ranks and judges every end, and falls back to the best-ranked end', async () => {
+    const pilot = await signedIn('pilot')
+    const all = (await pilot.get('/api/airfields/XCST/briefing')).body.briefing
+    const designators = all.runwayEnds.map((e: { designator: string }) => e.designator)
+    expect(designators.length).toBeGreaterThan(1)
+    const pick = designators[designators.length - 1]
+    const one = await pilot.get(`/api/airfields/XCST/briefing?end=${pick.toLowerCase()}`)
+    expect(one.status).toBe(200)
+    const b = one.body.briefing
+    expect(b.runwayEnds).toHaveLength(1)
+    // The detailed end is the same as in the full answer, figure for figure.
+    expect(b.runwayEnds[0]).toEqual(all.runwayEnds.find((e: { designator: string }) => e.designator === pick))
+    expect(b.ranking).toEqual(all.ranking)
+    expect(b.verdict).toEqual(all.verdict)
+    expect(b.feetSteps.every((s: { components: { designator: string }[] }) => s.components.length === 1 && s.components[0]!.designator === pick)).toBe(true)
+    expect(b.keyHeights.ft.every((k: { components: { designator: string }[] }) => k.components.map(c => c.designator).join() === pick)).toBe(true)
+    expect(b.feetSteps.map((s: { heightAglFt: number }) => s.heightAglFt)).toEqual(all.feetSteps.map((s: { heightAglFt: number }) => s.heightAglFt))
+    expect(JSON.stringify(one.body).length).toBeLessThan(JSON.stringify({ briefing: all }).length)
+    expect(one.body.caution).toContain('Advisory only')
+    // An end this airfield lacks, or best: the best-ranked end (what the page shows when nothing else is asked).
+    for (const q of ['best', '01']) {
+      const fb = (await pilot.get(`/api/airfields/XCST/briefing?end=${q}`)).body.briefing
+      expect(fb.runwayEnds.map((e: { designator: string }) => e.designator)).toEqual([all.ranking[0].designator])
+    }
+    const bad = await pilot.get('/api/airfields/XCST/briefing?end=runway-9')
+    expect(bad.status).toBe(422)
+    expect(bad.body.data.issues[0].field).toBe('end')
+    expect(bad.body.statusMessage).toMatch(/designator such as 09 or 27L/)
+  })
+})
+
+describe('compressed answers', () => {
+  it('gzips a briefing and the lists for a client that accepts gzip, to the same JSON; not when q=0', async () => {
+    const { gunzipSync } = await import('node:zlib')
+    const pilot = await signedIn('pilot')
+    for (const path of ['/api/airfields/XCST/briefing?end=best', '/api/briefings', '/api/airfields']) {
+      const url = new URL(path, pilot.baseUrl)
+      const zipped = await fetch(url, { headers: { 'cookie': pilot.cookie, 'accept-encoding': 'gzip' } })
+      expect(zipped.status).toBe(200)
+      expect(zipped.headers.get('content-encoding'), path).toBe('gzip')
+      expect(zipped.headers.get('vary')).toMatch(/accept-encoding/i)
+      // Node's fetch (undici) undoes the gzip itself; the raw bytes are checked with node:http below.
+      const text = await zipped.text()
+      const plain = await fetch(url, { headers: { 'cookie': pilot.cookie, 'accept-encoding': 'gzip;q=0, identity' } })
+      expect(plain.headers.get('content-encoding')).toBeNull()
+      const a = JSON.parse(text)
+      const p = JSON.parse(await plain.text())
+      // generatedAt and ages differ by the moment of each read; the rest is the same answer.
+      if (a.briefing) {
+        expect(a.briefing.runwayEnds).toEqual(p.briefing.runwayEnds)
+        expect(a.briefing.profile.id).toBe(p.briefing.profile.id)
+      }
+      else expect(a.airfields.map((x: { code: string }) => x.code)).toEqual(p.airfields.map((x: { code: string }) => x.code))
+    }
+    // The bytes on the wire are a gzip member (RFC 1952: 1f 8b) that inflates to JSON.
+    const http = await import('node:http')
+    const raw: Buffer = await new Promise((resolve, reject) => {
+      http.get(new URL('/api/airfields/XCST/briefing', pilot.baseUrl), { headers: { 'cookie': pilot.cookie, 'accept-encoding': 'gzip' } }, (res) => {
+        const parts: Buffer[] = []
+        res.on('data', (c: Buffer) => parts.push(c))
+        res.on('end', () => resolve(Buffer.concat(parts)))
+      }).on('error', reject)
+    })
+    expect([raw[0], raw[1]]).toEqual([0x1f, 0x8b])
+    expect(JSON.parse(gunzipSync(raw).toString('utf8')).briefing.runwayEnds.length).toBeGreaterThan(1)
   })
 })

@@ -10,7 +10,7 @@ import { sql } from 'drizzle-orm'
 import * as schema from '../../server/db/schema'
 import {
   backoffDelayMs, DatabaseUnavailableError, HostPool, isDatabaseUnavailable, isRetryableConflict, parseDatabaseUrl,
-  transaction, type DB,
+  takeTurn, transaction, type DB,
 } from '../../server/utils/db'
 
 const url = process.env.DATABASE_URL!
@@ -104,6 +104,24 @@ describe('transaction(): retries what the database asks to be retried', () => {
     expect(inner).toBe(1)
     const [rows] = await pool.query('SELECT n FROM ha_probe WHERE id = 2') as unknown as [{ n: number }[]]
     expect(rows[0]!.n).toBe(12)
+    await pool.query('UPDATE ha_probe SET n = 2 WHERE id = 2')
+  })
+
+  it('takeTurn: read-then-write transactions of one key take turns, so no update is lost (8 at once add 8)', async () => {
+    // Without the turn row each would read the same value in its snapshot and write value + 1: the lost update of
+    // ANSI SQL-92's phenomena (Berenson et al., "A Critique of ANSI SQL Isolation Levels", 1995, from memory).
+    const key = `test:lost-update:${Date.now()}`
+    await pool.query('UPDATE ha_probe SET n = 0 WHERE id = 2')
+    await Promise.all(Array.from({ length: 8 }, () => transaction(async (t) => {
+      await takeTurn(t, key)
+      const [r] = await t.execute(sql`SELECT n FROM ha_probe WHERE id = 2`) as unknown as [{ n: number }[]]
+      await new Promise(res => setTimeout(res, 5))
+      await t.execute(sql`UPDATE ha_probe SET n = ${r[0]!.n + 1} WHERE id = 2`)
+    }, { db })))
+    const [rows] = await pool.query('SELECT n FROM ha_probe WHERE id = 2') as unknown as [{ n: number }[]]
+    expect(rows[0]!.n).toBe(8)
+    const [turns] = await pool.query('SELECT seq FROM write_turns WHERE turn_key = ?', [key]) as unknown as [{ seq: number }[]]
+    expect(Number(turns[0]!.seq)).toBe(8)
     await pool.query('UPDATE ha_probe SET n = 2 WHERE id = 2')
   })
 

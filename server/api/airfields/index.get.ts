@@ -3,8 +3,7 @@ import { airfieldListJson, type AirfieldListAnswer } from '../../domain/airfield
 // Every airfield with the profile in force now (or the next one), for the airfield list.
 export default defineApiHandler(async (event) => {
   await requireUser(event)
-  const text = await airfieldListJson()
-  setResponseHeader(event, 'content-type', 'application/json; charset=utf-8')
-  // JSON text shared by the requests that came together; typed as what it spells for the pages' fetches.
-  return text as unknown as AirfieldListAnswer
+  const answer = await airfieldListJson()
+  // JSON text shared by the requests that came together (gzip when asked); typed as what it spells for the pages.
+  return jsonText(event, 'airfield-list', answer.text) as unknown as AirfieldListAnswer
 })

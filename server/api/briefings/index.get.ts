@@ -3,8 +3,7 @@ import { briefingListJson, type BriefingListAnswer } from '../../domain/briefing
 // Every airfield with the state of its briefing now: the profile in force and how many limits it crosses.
 export default defineApiHandler(async (event) => {
   await requireCapability(event, 'read-briefings')
-  const text = await briefingListJson()
-  setResponseHeader(event, 'content-type', 'application/json; charset=utf-8')
-  // JSON text shared by the requests that came together; typed as what it spells for the pages' fetches.
-  return text as unknown as BriefingListAnswer
+  const answer = await briefingListJson()
+  // JSON text shared by the requests that came together (gzip when asked); typed as what it spells for the pages.
+  return jsonText(event, 'briefing-list', answer.text) as unknown as BriefingListAnswer
 })

@@ -3,7 +3,7 @@ import { and, eq, gte, schema, sql, transaction, useDB } from '../../utils/db'
 import { recordAudit } from '../../utils/audit'
 import { unauthorised } from '../../utils/errors'
 import { credentialsMatch } from './credentials'
-import { recordSignInFailure, signInWaitS } from './sign-in-limit'
+import { clearSignInFailures, takeSignInAttempt } from './sign-in-limit'
 import { issueToken } from './tokens'
 
 export type SignInResult = { kind: 'locked', waitS: number } | { kind: 'signed-in', user: User }
@@ -13,15 +13,13 @@ export type SignInResult = { kind: 'locked', waitS: number } | { kind: 'signed-i
  * timing does not tell which exist; one message whatever went wrong. The route starts the session.
  */
 export async function signIn(email: string, password: string, address: string): Promise<SignInResult> {
-  const waitS = await signInWaitS(email, address)
+  // Counted as a failure until the password proves right (see takeSignInAttempt).
+  const waitS = await takeSignInAttempt(email, address)
   if (waitS > 0) return { kind: 'locked', waitS }
   const [user] = await useDB().select().from(schema.users).where(eq(schema.users.email, email))
   const ok = await credentialsMatch(user, password, { hash: hashPassword, verify: verifyPassword })
-  if (!user || !ok) {
-    await recordSignInFailure(email, address)
-    throw unauthorised('E-mail or password not recognised')
-  }
-  await useDB().delete(schema.signInFailures).where(eq(schema.signInFailures.email, email))
+  if (!user || !ok) throw unauthorised('E-mail or password not recognised')
+  await clearSignInFailures(email)
   await recordAudit(useDB(), { user }, 'session.sign-in', 'user', user.id)
   return { kind: 'signed-in', user }
 }

@@ -57,10 +57,10 @@ export type AirfieldListAnswer = { airfields: Awaited<ReturnType<typeof readAirf
  * GET /api/airfields as JSON text: the same for every reader, so the requests arriving together share one read
  * and one serialisation, made after each of them arrived (server/utils/shared-read.ts).
  */
-export function airfieldListJson(): Promise<string> {
+export function airfieldListJson(): Promise<{ text: string }> {
   return sharedRead('airfield-list', async () => {
     const now = new Date()
-    const answer: AirfieldListAnswer = { airfields: await readAirfieldList(now), at: now.toISOString() }
-    return JSON.stringify(answer)
+    const answer: AirfieldListAnswer = { airfields: await readAirfieldList(now), at: `${now.toISOString().slice(0, 19)}Z` }
+    return { text: JSON.stringify(answer) }
   })
 }

@@ -2,7 +2,7 @@
 // airfield, plan the alert changes (plan.ts), apply them and queue the notices in the outbox, all in that transaction.
 // Filing, withdrawing and limit changes call it directly, once per airfield and change; each run leaves one audit
 // entry ('alerts.evaluate'), so a reader (and a test) can count the runs.
-import { and, eq, gt, inArray, schema, sql } from '../../utils/db'
+import { and, eq, gt, inArray, schema, sql, takeTurn } from '../../utils/db'
 import type { Tx } from '../../utils/db'
 import { recordAudit, type AuditActor } from '../../utils/audit'
 import type { ProfileAnalysis } from '../../../shared/wind'
@@ -45,8 +45,9 @@ export function appUrlOf(): string {
 export async function evaluateAirfield(tx: Tx, airfieldId: number, options: EvaluationOptions): Promise<EvaluationSummary> {
   const now = options.now ?? new Date()
   const appUrl = options.appUrl ?? appUrlOf()
-  // One evaluation per airfield at a time: two filings at once must not both insert or both clear.
-  await tx.execute(sql`SELECT id FROM airfields WHERE id = ${airfieldId} FOR UPDATE`)
+  // One evaluation per airfield at a time: two filings at once must not both insert or both clear (a turn row, so
+  // that it holds across Galera nodes too).
+  await takeTurn(tx, `airfield:${airfieldId}`)
 
   const p = schema.profiles
   const active = await tx.select({ id: p.id, validFrom: p.validFrom, validTo: p.validTo, reportedWindShear: p.reportedWindShear }).from(p)

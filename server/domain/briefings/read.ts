@@ -98,9 +98,35 @@ export const briefingCache = new BoundedCache<CachedBriefing>()
 
 export type Precision = 'trade' | 'full'
 
-const keyOf = (profileId: number, stamp: string, precision: Precision) => `${profileId}|${stamp}|${precision}|${CODE_VERSION}`
+const keyOf = (profileId: number, stamp: string, precision: Precision, focus: EndFocus = 'all') => `${profileId}|${stamp}|${precision}|${focus}|${CODE_VERSION}`
 
 /** The figures a page shows: levels thinned for display, no figure twice, rounded to the trade's precision. */
+/**
+ * Which runway ends a briefing answer details: every one ('all', the API's default), or the one a page shows (a
+ * designator; an unknown one, or 'best', gives the best-ranked end, as the page chooses when nothing else is asked).
+ */
+export type EndFocus = string
+
+/** The answer with its per-end figures (components by height and level, checks, paths) for the focused ends only. */
+type Focusable = {
+  runwayEnds: { designator: string }[]
+  ranking: { designator: string }[]
+  feetSteps: { components: { designator: string }[] }[]
+  keyHeights: Record<'ft' | 'm', { components: { designator: string }[] }[]>
+}
+export function focusEnds<T extends Focusable>(b: T, focus: EndFocus): T {
+  if (focus === 'all') return b
+  const known = b.runwayEnds.some(e => e.designator === focus)
+  const chosen = known ? focus : (b.ranking[0]?.designator ?? b.runwayEnds[0]?.designator)
+  const only = <C extends { designator: string }>(xs: C[]) => xs.filter(x => x.designator === chosen)
+  return {
+    ...b,
+    runwayEnds: only(b.runwayEnds),
+    feetSteps: b.feetSteps.map(f => ({ ...f, components: only(f.components) })),
+    keyHeights: { ft: b.keyHeights.ft.map(k => ({ ...k, components: only(k.components) })), m: b.keyHeights.m.map(k => ({ ...k, components: only(k.components) })) },
+  }
+}
+
 export function briefingView(full: Briefing, profileId: number) {
   const keep = displayLevelIndexes(full.levels.map(l => l.heightAglM))
   const pick = <T>(xs: T[]) => (keep.length === xs.length ? xs : keep.map(i => xs[i]!))
@@ -126,7 +152,7 @@ export function briefingView(full: Briefing, profileId: number) {
 }
 
 /** Analyses stored profiles of several airfields in a fixed number of queries and keeps each in the cache. */
-async function computeMany(items: { key: string, precision: Precision, profile: ProfileHead, airfield: Airfield }[]) {
+async function computeMany(items: { key: string, precision: Precision, focus?: EndFocus, profile: ProfileHead, airfield: Airfield }[]) {
   if (!items.length) return new Map<string, CachedBriefing>()
   const db = useDB()
   const airfieldIds = [...new Set(items.map(i => i.airfield.id))]
@@ -166,7 +192,7 @@ async function computeMany(items: { key: string, precision: Precision, profile: 
     }
     const full = assembleBriefing(stored, limitSet, change)
     const ranking = rankRunwayEnds(stored.analysis.runwayEnds, checks)
-    const rest = item.precision === 'full' ? full : briefingView(full, item.profile.id)
+    const rest = focusEnds(item.precision === 'full' ? full : briefingView(full, item.profile.id), item.focus ?? 'all')
     const restJson = JSON.stringify(rest)
     const entry: CachedBriefing = {
       restJson,
@@ -246,8 +272,11 @@ export type BriefingAnswer
 export type BriefingRead
   = | { kind: 'no-airfield', code: string }
     | { kind: 'no-such-profile', code: string, profileId: number }
-    | { kind: 'no-profile', body: string, etag: string }
-    | { kind: 'briefing', body: string, etag: string, profileId: number }
+    | { kind: 'no-profile', body: string, etag: string, memoKey: string }
+    | { kind: 'briefing', body: string, etag: string, profileId: number, memoKey: string }
+
+/** An instant as ISO 8601 to the whole second (2026-12-02T15:04:05Z). */
+export const toSecond = (d: Date) => `${d.toISOString().slice(0, 19)}Z`
 
 const weakTag = (s: string) => `W/"${createHash('md5').update(s).digest('base64url')}"`
 
@@ -255,14 +284,14 @@ const weakTag = (s: string) => `W/"${createHash('md5').update(s).digest('base64u
  * The briefing answer of GET /api/airfields/{code}/briefing as JSON text with its ETag, for one reader.
  * `at` defaults to now; `profileId` picks a version of this airfield.
  */
-export function readBriefing(code: string, userId: number, opts: { at?: Date, profileId?: number, precision?: Precision }): Promise<BriefingRead> {
+export function readBriefing(code: string, userId: number, opts: { at?: Date, profileId?: number, precision?: Precision, end?: EndFocus }): Promise<BriefingRead> {
   // The same reader asking the same briefing at the same moment shares one read (server/utils/shared-read.ts), made
   // after each of them arrived: never staler than a read of its own.
-  const key = `briefing:${code.toUpperCase()}|${userId}|${opts.profileId ?? ''}|${opts.at?.toISOString() ?? 'now'}|${opts.precision ?? 'trade'}`
-  return sharedRead(key, () => readBriefingNow(code, userId, opts))
+  const key = `briefing:${code.toUpperCase()}|${userId}|${opts.profileId ?? ''}|${opts.at?.toISOString() ?? 'now'}|${opts.precision ?? 'trade'}|${opts.end ?? 'all'}`
+  return sharedRead(key, () => readBriefingNow(code, userId, opts, key))
 }
 
-async function readBriefingNow(code: string, userId: number, opts: { at?: Date, profileId?: number, precision?: Precision }): Promise<BriefingRead> {
+async function readBriefingNow(code: string, userId: number, opts: { at?: Date, profileId?: number, precision?: Precision, end?: EndFocus }, memoKey: string): Promise<BriefingRead> {
   const now = new Date()
   const at = opts.at ?? now
   const precision = opts.precision ?? 'trade'
@@ -286,19 +315,21 @@ async function readBriefingNow(code: string, userId: number, opts: { at?: Date, 
     const ends = await useDB().select().from(schema.runwayEnds).where(inArray(schema.runwayEnds.airfieldId, [airfield.id])) as RunwayEnd[]
     const body = JSON.stringify({ briefing: null, airfield: roundFigures(publicAirfield(airfield, ends)), at: at.toISOString(),
       message: `No wind profile has been filed for ${airfield.code} at or before ${at.toISOString()}`, caution: VEERLINE_CAUTION, receipt: null })
-    return { kind: 'no-profile', body, etag: weakTag(`${row.stamp}|none|${opts.at ? at.toISOString() : ''}`) }
+    return { kind: 'no-profile', body, etag: weakTag(`${row.stamp}|none|${opts.at ? at.toISOString() : ''}`), memoKey }
   }
   const profile = profileOf(row, airfield.id)
-  const key = keyOf(profile.id, row.stamp, precision)
-  const entry = briefingCache.get(key) ?? (await computeMany([{ key, precision, profile, airfield }])).get(key)!
+  const focus = opts.end ?? 'all'
+  const key = keyOf(profile.id, row.stamp, precision, focus)
+  const entry = briefingCache.get(key) ?? (await computeMany([{ key, precision, focus, profile, airfield }])).get(key)!
   const p = publicProfileOf(profile, now, at, opts.at != null)
-  const head = JSON.stringify({ at: at.toISOString(), atChosen: opts.at != null, generatedAt: now.toISOString(), profile: p })
+  // Times to the second (a chosen time as given): within one second, nothing changed, the same text (and its gzip).
+  const head = JSON.stringify({ at: opts.at ? at.toISOString() : toSecond(now), atChosen: opts.at != null, generatedAt: toSecond(now), profile: p })
   const receipt = row.r_id == null ? null : { id: row.r_id, profileId: profile.id, readAt: (row.r_read_at as Date).toISOString() }
   const receiptJson = JSON.stringify(receipt)
   const body = `{"briefing":${head.slice(0, -1)},${entry.restJson.slice(1)},"caution":${CAUTION_JSON},"receipt":${receiptJson}}`
   // Same profile version, same inputs, same status and receipt: the same briefing (the times in it aside).
   const etag = weakTag(`${key}|${p.status}|${p.statusNow}|${p.supersededById}|${p.withdrawnReason}|${p.filedMinutesAgo}|${p.stale}|${receiptJson}|${opts.at ? at.toISOString() : ''}`)
-  return { kind: 'briefing', body, etag, profileId: profile.id }
+  return { kind: 'briefing', body, etag, profileId: profile.id, memoKey }
 }
 
 /** One line per airfield for the home list: its profile in force now and what it crosses. A fixed number of queries. */
@@ -333,9 +364,9 @@ export async function readBriefingSummaries() {
 export type BriefingListAnswer = { airfields: Awaited<ReturnType<typeof readBriefingSummaries>>, caution: string }
 
 /** GET /api/briefings as JSON text: the same for every reader, one read and serialisation for those arriving together. */
-export function briefingListJson(): Promise<string> {
+export function briefingListJson(): Promise<{ text: string }> {
   return sharedRead('briefing-list', async () => {
     const answer: BriefingListAnswer = { airfields: await readBriefingSummaries(), caution: VEERLINE_CAUTION }
-    return JSON.stringify(answer)
+    return { text: JSON.stringify(answer) }
   })
 }

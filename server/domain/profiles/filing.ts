@@ -3,7 +3,7 @@ import type { Airfield, Profile, ProfileLevel, User, ReportedWindShear } from '.
 import { profileInputSchema, type ProfileEntryMethod, type ProfileInput, type ProfileLevelInput } from '#shared/utils/profile-schema'
 import { analyseProfile, WindValidationError, WMM2025_END, WMM2025_START, type ValidationIssue, type WindWarning } from '../../../shared/wind'
 import { airfieldDeclination, pressureInputsOf, runwayEndInputsOf } from './analysis'
-import { and, eq, gt, inArray, lt, ne, schema } from '../../utils/db'
+import { and, eq, gt, inArray, lt, ne, schema, takeTurn } from '../../utils/db'
 import type { Tx } from '../../utils/db'
 import { recordAudit, type AuditActor } from '../../utils/audit'
 import { evaluateAirfield } from '../alerts/evaluate'
@@ -188,8 +188,9 @@ export async function fileProfile(tx: Tx, { airfield, input, actor, entryMethod,
   lineOf?: LineOf
   details?: Record<string, unknown>
 }): Promise<FiledProfile> {
-  // One filing at a time per airfield, so two overlapping filings cannot both stay active.
-  await tx.select({ id: schema.airfields.id }).from(schema.airfields).where(eq(schema.airfields.id, airfield.id)).for('update')
+  // One filing at a time per airfield, so two overlapping filings cannot both stay active (a turn row: certified on
+  // Galera, where a row lock alone would not keep two nodes apart).
+  await takeTurn(tx, `airfield:${airfield.id}`)
   const ends = await tx.select().from(schema.runwayEnds).where(eq(schema.runwayEnds.airfieldId, airfield.id))
   const { profile: p, analysis } = checkProfile(airfield, ends, input, lineOf)
   const validFrom = new Date(p.validFrom)

@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest'
 import { BoundedCache } from '../../../server/domain/briefings/analysis-cache'
 import { displayLevelIndexes, roundFigures, roundTo } from '../../../server/domain/briefings/precision'
 import { sharedRead, sharedReadsWaiting } from '../../../server/utils/shared-read'
+import { acceptsGzip } from '../../../server/utils/json-text'
 
 describe('BoundedCache', () => {
   it('keeps at most its entries and bytes, dropping the least recently used first', () => {
@@ -81,5 +82,23 @@ describe('sharedRead', () => {
     await expect(x).rejects.toThrow('database away')
     await expect(y).rejects.toThrow('database away')
     expect(await sharedRead('f', async () => 'back')).toBe('back')
+  })
+})
+
+describe('acceptsGzip', () => {
+  it('reads Accept-Encoding as RFC 9110 §12.5.3 does, on its own examples', () => {
+    // The examples of RFC 9110 §12.5.3, and what a browser sends.
+    expect(acceptsGzip('compress, gzip')).toBe(true)
+    expect(acceptsGzip('')).toBe(false) // empty: identity only
+    expect(acceptsGzip('*')).toBe(true)
+    expect(acceptsGzip('compress;q=0.5, gzip;q=1.0')).toBe(true)
+    expect(acceptsGzip('gzip;q=1.0, identity; q=0.5, *;q=0')).toBe(true)
+    expect(acceptsGzip('gzip, deflate, br, zstd')).toBe(true)
+    // A weight of 0 means "not acceptable"; an explicit gzip;q=0 wins over "*".
+    expect(acceptsGzip('gzip;q=0')).toBe(false)
+    expect(acceptsGzip('gzip;q=0, *')).toBe(false)
+    expect(acceptsGzip('identity, *;q=0')).toBe(false)
+    expect(acceptsGzip('br')).toBe(false)
+    expect(acceptsGzip(undefined)).toBe(false)
   })
 })
