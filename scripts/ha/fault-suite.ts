@@ -144,10 +144,17 @@ let stopLoad = false
 let fanOutRequests = 0
 
 async function filer(n: number, dispatcher: SuiteClient) {
-  for (let step = 0; step < SETTINGS.maxFilingsPerFiler && !stopLoad && !pastDeadline(); step++) {
-    // Filer 0 drives the fan-outs when asked to (a strong profile raises, a calm one clears, at FIELD).
+  // Up to maxFilingsPerFiler filings at QUIET, spread over the faults; filer 0 also files at FIELD whenever a fault
+  // asks for a fan-out (a strong profile raises, a calm one clears), until the load stops.
+  let quiet = 0
+  for (let step = 0; !stopLoad && !pastDeadline(); step++) {
     const fanOut = n === 0 && fanOutRequests > 0
+    if (!fanOut && quiet >= SETTINGS.maxFilingsPerFiler) {
+      await sleep(100)
+      continue
+    }
     if (fanOut) fanOutRequests--
+    else quiet++
     const field = fanOut ? FIELD : QUIET
     const strong = fanOut ? filings.filter(f => f.field === FIELD).length % 2 === 0 : step % 2 === 0
     const key = `${RUN}-f${n}-${step}`
@@ -158,7 +165,7 @@ async function filer(n: number, dispatcher: SuiteClient) {
     entry.attempts = res.attempts
     if (res.status === 201) entry.profileId = res.body.profile.id
     else log(`filing ${key} refused: ${res.status} ${JSON.stringify(res.body).slice(0, 200)}`)
-    await sleep(150 + Math.random() * 150)
+    await sleep(fanOut ? 50 : 600 + Math.random() * 400)
   }
 }
 
@@ -179,7 +186,7 @@ async function limitChanger(safety: SuiteClient) {
       else if (await scalar(`SELECT COUNT(*) FROM threshold_changes WHERE reason = '${reason}'`).catch(() => 0) > 0) entry.acknowledged = true
       else await sleep(300)
     }
-    await sleep(700 + Math.random() * 300)
+    await sleep(1800 + Math.random() * 400)
   }
 }
 
@@ -188,7 +195,7 @@ async function reader(pilot: SuiteClient) {
     await pilot.once(n % urls.length, 'GET', `/api/airfields/${n % 2 ? FIELD : QUIET}/briefing`).catch(() => {
       pilot.tally.refused++
     })
-    await sleep(100)
+    await sleep(150)
   }
 }
 
