@@ -21,7 +21,7 @@ const DB_URL = process.env.DATABASE_URL!
 const EMAILS = Number(process.env.VEERLINE_BENCH_EMAILS) || 1000
 const PUSHES = Number(process.env.VEERLINE_BENCH_PUSHES) || 200
 const LATENCY_MS = Number(process.env.VEERLINE_BENCH_LATENCY_MS ?? 50)
-const CONTROL_FILINGS = 20
+const CONTROL_FILINGS = 40
 const conn = await mysql.createConnection({ uri: DB_URL, timezone: 'Z' })
 const q = async <T>(text: string, params: unknown[] = []) => (await conn.query(text, params))[0] as T[]
 

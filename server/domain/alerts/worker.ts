@@ -118,6 +118,8 @@ export class OutboxWorker {
     const inFlight = new Set<Promise<void>>()
     try {
       for (let round = 0; round < 1000 && !this.stopping; round++) {
+        // Neither claims nor sends while this instance answers a write request (give-way.ts).
+        await writesSettled(this.opts.giveWayMs)
         const { token, rows } = await claimDue(this.db, this.opts.instanceId, { batchSize: this.opts.batchSize, leaseMs: this.opts.timing.leaseMs })
         if (!rows.length) break
         await Promise.all((['email', 'push'] as const).map(async (ch) => {
@@ -173,6 +175,8 @@ export class OutboxWorker {
   private async drain() {
     try {
       while (this.pending.length) {
+        // Results wait (briefly, the lease covers it) while this instance answers a write request; then all at once.
+        await writesSettled(this.opts.giveWayMs)
         const batch = this.pending.splice(0, 100)
         for (let tries = 0; ; tries++) {
           try {
