@@ -31,8 +31,9 @@ async function connectAny() {
 
 const connection = await connectAny()
 const db = drizzle(connection, { schema, mode: 'default' })
-// Two instances starting together must not migrate at the same time. A lease row, not GET_LOCK: GET_LOCK is local to
-// one MariaDB node and Galera does not replicate it, while an UPDATE of one row is certified across the cluster.
+// Two instances starting together must not migrate at the same time. A lease row, not a named server lock: such a
+// lock is local to one MariaDB node and Galera does not replicate it, while an UPDATE of one row is certified across
+// the cluster.
 // The lease expires, so an instance killed mid-migration does not block the next start for ever.
 const LEASE_S = 120
 const holder = randomUUID()
