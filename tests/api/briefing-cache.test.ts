@@ -3,7 +3,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { ApiClient } from '../support/api'
 import { signedIn } from '../support/api'
-import { closeDb, makeAirfield, profileBody } from '../support/airfields'
+import { closeDb, makeAirfield, profileBody, runSql } from '../support/airfields'
 import { startSecondInstance, type SecondInstance } from '../support/instance'
 
 afterAll(closeDb)
@@ -183,6 +183,55 @@ describe('the cache never serves a stale briefing after an edit on another insta
     const asked = (await pilot.get(`/api/airfields/${code}/briefing?profile=${profileId}`)).body.briefing
     expect(asked.profile.status).toBe('withdrawn')
     expect(asked.profile.withdrawnReason).toBe('Cache test: sensor fault')
+  })
+})
+
+describe('kept answers follow the database and the clock', () => {
+  async function fieldWithProfile() {
+    const dispatcher = await signedIn('dispatcher')
+    const { code, airfield } = await makeAirfield(dispatcher)
+    const filed = await dispatcher.post(`/api/airfields/${code}/profiles`, profileBody(0, 3))
+    expect(filed.status).toBe(201)
+    return { code, airfieldId: airfield.id as number, profileId: filed.body.profile.id as number, pilot: await signedIn('pilot') }
+  }
+
+  it('a change written straight to the database, by no route of the app, shows in the next briefing and lists', async () => {
+    const { code, airfieldId, pilot } = await fieldWithProfile()
+    for (let i = 0; i < 2; i++) {
+      expect((await pilot.get(`/api/airfields/${code}/briefing?end=18`)).body.briefing.runwayEnds[0].trueHeadingDeg).toBe(180)
+      expect((await pilot.get(`/api/airfields?q=${code}`)).body.airfields[0].name).toBe(`Test field ${code}`)
+      expect((await pilot.get(`/api/briefings?q=${code}`)).body.airfields[0].name).toBe(`Test field ${code}`)
+    }
+    await runSql('UPDATE runway_ends SET true_heading_deg = 170 WHERE airfield_id = ? AND designator = \'18\'', [airfieldId])
+    await runSql('UPDATE airfields SET name = ? WHERE id = ?', [`Renamed ${code}`, airfieldId])
+    const end18 = (await pilot.get(`/api/airfields/${code}/briefing?end=18`)).body.briefing.runwayEnds[0]
+    expect(end18.trueHeadingDeg).toBe(170)
+    // Surface wind 200° at 12 kt on a heading of 170°: headwind 12·cos 30° = 10.4 kt (trade formula, common practice).
+    expect(end18.surface.headwindKt).toBeCloseTo(12 * Math.cos(30 * Math.PI / 180), 1)
+    expect((await pilot.get(`/api/airfields?q=${code}`)).body.airfields[0].name).toBe(`Renamed ${code}`)
+    expect((await pilot.get(`/api/briefings?q=${code}`)).body.airfields[0].name).toBe(`Renamed ${code}`)
+  })
+
+  it('a profile whose validity runs out is not shown in force past its end, with nothing written meanwhile', async () => {
+    const { code, profileId, pilot } = await fieldWithProfile()
+    await runSql('UPDATE profiles SET valid_to = DATE_ADD(UTC_TIMESTAMP(), INTERVAL 2 SECOND) WHERE id = ?', [profileId])
+    const readAll = async () => ({
+      briefing: (await pilot.get(`/api/airfields/${code}/briefing`)).body.briefing,
+      home: (await pilot.get(`/api/briefings?q=${code}`)).body.airfields[0],
+      list: (await pilot.get(`/api/airfields?q=${code}`)).body.airfields[0],
+    })
+    for (let i = 0; i < 2; i++) {
+      const r = await readAll()
+      expect(r.briefing.profile.status).toBe('current')
+      expect(r.home.profile.status).toBe('current')
+      expect(r.list.profileState.state).toBe('current')
+    }
+    await new Promise(resolve => setTimeout(resolve, 3000))
+    const later = await readAll()
+    expect(later.briefing.profile.id).toBe(profileId)
+    expect(later.briefing.profile.status).not.toBe('current')
+    expect(later.home.profile.status).not.toBe('current')
+    expect(later.list.profileState.state).toBe('none')
   })
 })
 

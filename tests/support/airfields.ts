@@ -51,6 +51,11 @@ export async function countRows(table: string, where = '1=1', values: unknown[] 
   return Number((rows as { n: number }[])[0]!.n)
 }
 
+/** A statement run straight on the database, past every route of the app (for tests of what the app notices). */
+export async function runSql(text: string, values: unknown[] = []) {
+  await db().query(text, values)
+}
+
 export async function closeDb() {
   await pool?.end()
   pool = undefined

@@ -7,6 +7,7 @@ import type { Airfield } from '../../db/schema'
 import { usePool } from '../../utils/db'
 import { sharedRead } from '../../utils/shared-read'
 import { airfieldSummary } from './index'
+import { countersOf, KeptAnswers, nextChangeMs, ORG_VERSION_SQL, versionOfSql } from './versions'
 
 // A raw mysql2 row: its columns are typed where they are read.
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
@@ -24,13 +25,28 @@ const containing = (q: string) => `%${q.replace(/[\\%_]/g, '\\$&')}%`
  */
 export function airfieldPageSql(o: AirfieldPageOptions): { sql: string, args: unknown[] } {
   const follower = o.followerId != null
-  const sql = `(SELECT f.id, COUNT(*) OVER () AS total, ${follower ? '(s.id IS NOT NULL)' : '0'} AS followed
+  const sql = `(SELECT f.id, f.code, COUNT(*) OVER () AS total, ${follower ? '(s.id IS NOT NULL)' : '0'} AS followed
     FROM airfields f ${follower ? 'LEFT JOIN alert_subscriptions s ON s.airfield_id = f.id AND s.user_id = ?' : ''}
     WHERE (? = '' OR f.code LIKE ? OR f.name LIKE ?) ${follower && o.onlyFollowed ? 'AND s.id IS NOT NULL' : ''}
     ORDER BY followed DESC, f.code LIMIT ? OFFSET ?) pg`
   const like = containing(o.q)
   return { sql, args: [...(follower ? [o.followerId] : []), o.q, like, like, o.pageSize, (o.page - 1) * o.pageSize] }
 }
+
+/**
+ * The counters of a page as they stand: which airfields, in which order, at which versions, and the total. Equal to
+ * what countersOf gives for the rows of a full read made at the same versions.
+ */
+export async function pageCounters(o: AirfieldPageOptions): Promise<string> {
+  const page = airfieldPageSql(o)
+  const [rows] = await usePool().query(
+    `SELECT pg.id, pg.total, pg.followed, ${versionOfSql('pg.id')} AS v, ${ORG_VERSION_SQL} AS org
+     FROM ${page.sql} ORDER BY pg.followed DESC, pg.code`, page.args) as [Row[], unknown]
+  return countersOf(rows as { id: number, v: number }[], rows[0]?.org ?? 0, rows[0]?.total ?? 0)
+}
+
+/** The page key of a kept answer. */
+export const pageKeyOf = (o: AirfieldPageOptions) => `${o.followerId ?? ''}|${o.onlyFollowed ? 1 : 0}|${o.q}|${o.page}|${o.pageSize}`
 
 /** How many airfields a search finds (when the page asked for lies past the last one, it carries no total). */
 export async function countAirfieldPage(o: AirfieldPageOptions): Promise<number> {
@@ -49,10 +65,35 @@ const CURRENT_ID_SQL = `(SELECT q.id FROM profiles q WHERE q.airfield_id = a.id 
 const NEXT_ID_SQL = `(SELECT q.id FROM profiles q WHERE q.airfield_id = a.id AND q.status = 'active'
     AND q.valid_from > ? ORDER BY q.valid_from ASC, q.id ASC LIMIT 1)`
 
-export async function readAirfieldList(o: AirfieldPageOptions, now = new Date()) {
+type AirfieldListPage = { airfields: ReturnType<typeof lineOf>[], total: number }
+const keptPages = new KeptAnswers<AirfieldListPage>(2000)
+
+function lineOf(r: Row) {
+  const a: Airfield = {
+    id: r.id, code: r.code, name: r.name, latitudeDeg: r.latitude_deg, longitudeDeg: r.longitude_deg, elevationM: r.elevation_m,
+    elevationUnit: r.elevation_unit, magVarOverrideDeg: r.mag_var_override_deg, magVarOverrideReason: r.mag_var_override_reason,
+    notes: r.notes, createdAt: r.created_at, updatedAt: r.updated_at,
+    reportingStation: r.reporting_station, pathSettings: typeof r.path_settings === 'string' ? JSON.parse(r.path_settings) : (r.path_settings ?? null),
+  }
+  const cur = brief(r.c_id, r.c_valid_from, r.c_valid_to, r.c_source)
+  const nxt = brief(r.n_id, r.n_valid_from, r.n_valid_to, r.n_source)
+  return {
+    ...airfieldSummary(a),
+    runwayEnds: r.designators ? String(r.designators).split(',') : [],
+    profileState: { state: cur ? 'current' as const : nxt ? 'upcoming' as const : 'none' as const, current: cur, next: nxt },
+  }
+}
+
+/** One page of the airfield list: kept while its airfields' counters stand and no profile begins or ends. */
+export async function readAirfieldList(o: AirfieldPageOptions, now = new Date()): Promise<AirfieldListPage> {
+  const key = pageKeyOf(o)
+  if (keptPages.has(key)) {
+    const kept = keptPages.get(key, await pageCounters(o), now)
+    if (kept) return kept
+  }
   const page = airfieldPageSql(o)
   const [rows] = await usePool().query(
-    `SELECT pg.total, a.*,
+    `SELECT pg.total, pg.followed, ${versionOfSql('a.id')} AS v, ${ORG_VERSION_SQL} AS org, a.*,
        (SELECT GROUP_CONCAT(e.designator ORDER BY e.designator SEPARATOR ',') FROM runway_ends e WHERE e.airfield_id = a.id) AS designators,
        c.id AS c_id, c.valid_from AS c_valid_from, c.valid_to AS c_valid_to, c.source AS c_source,
        n.id AS n_id, n.valid_from AS n_valid_from, n.valid_to AS n_valid_to, n.source AS n_source
@@ -63,26 +104,17 @@ export async function readAirfieldList(o: AirfieldPageOptions, now = new Date())
      ORDER BY pg.followed DESC, a.code`,
     [...page.args, now, now, now],
   ) as [Row[], unknown]
-  const airfields = rows.map((r) => {
-    const a: Airfield = {
-      id: r.id, code: r.code, name: r.name, latitudeDeg: r.latitude_deg, longitudeDeg: r.longitude_deg, elevationM: r.elevation_m,
-      elevationUnit: r.elevation_unit, magVarOverrideDeg: r.mag_var_override_deg, magVarOverrideReason: r.mag_var_override_reason,
-      notes: r.notes, createdAt: r.created_at, updatedAt: r.updated_at,
-      reportingStation: r.reporting_station, pathSettings: typeof r.path_settings === 'string' ? JSON.parse(r.path_settings) : (r.path_settings ?? null),
-    }
-    const cur = brief(r.c_id, r.c_valid_from, r.c_valid_to, r.c_source)
-    const nxt = brief(r.n_id, r.n_valid_from, r.n_valid_to, r.n_source)
-    return {
-      ...airfieldSummary(a),
-      runwayEnds: r.designators ? String(r.designators).split(',') : [],
-      profileState: { state: cur ? 'current' as const : nxt ? 'upcoming' as const : 'none' as const, current: cur, next: nxt },
-    }
-  })
   const total = rows.length ? Number(rows[0]!.total) : o.page > 1 ? await countAirfieldPage(o) : 0
-  return { airfields, total }
+  const answer = { airfields: rows.map(lineOf), total }
+  if (rows.length) {
+    // The page changes by itself when a profile in force ends or the next one begins.
+    const untilMs = Math.min(...rows.map(r => nextChangeMs(now, r.c_valid_to, r.n_valid_from)))
+    keptPages.set(key, answer, countersOf(rows as { id: number, v: number }[], rows[0]!.org, rows[0]!.total), untilMs, 1000 + rows.length * 600)
+  }
+  return answer
 }
 
-export type AirfieldListAnswer = { airfields: Awaited<ReturnType<typeof readAirfieldList>>['airfields'], total: number, page: number, pageSize: number, q: string, at: string }
+export type AirfieldListAnswer = { airfields: AirfieldListPage['airfields'], total: number, page: number, pageSize: number, q: string, at: string }
 
 /**
  * GET /api/airfields as JSON text: the same for every reader, so the requests arriving together for the same page

@@ -29,6 +29,11 @@ export class BoundedCache<V extends { bytes: number }> {
     return v
   }
 
+  /** The value without counting a hit or moving it up. */
+  peek(key: string): V | undefined {
+    return this.map.get(key)
+  }
+
   set(key: string, value: V) {
     const old = this.map.get(key)
     if (old) {

@@ -17,7 +17,8 @@ import { VEERLINE_CAUTION } from '../../../shared/utils/caution'
 import { BoundedCache } from './analysis-cache'
 import { sharedRead } from '../../utils/shared-read'
 import { displayGridIndexes, displayLevelIndexes, roundFigures } from './precision'
-import { airfieldPageSql, countAirfieldPage, type AirfieldPageOptions } from '../airfields/list-read'
+import { airfieldPageSql, countAirfieldPage, pageCounters, pageKeyOf, type AirfieldPageOptions } from '../airfields/list-read'
+import { countersOf, KeptAnswers, nextChangeMs, ORG_VERSION_SQL, versionOfSql } from '../airfields/versions'
 
 /** Changes whenever the engine, the magnetic model or the shape of the answer changes: part of every key. */
 const CODE_VERSION = 'engine-1;wmm2025;view-2'
@@ -269,6 +270,47 @@ export const toSecond = (d: Date) => `${d.toISOString().slice(0, 19)}Z`
 
 const weakTag = (s: string) => `W/"${createHash('md5').update(s).digest('base64url')}"`
 
+// When the profile a briefing is read from changes by itself: the next profile (not withdrawn) to begin after now, and
+// the next start or end of a supersession of this profile (placeholders: now; now, now).
+const NEXT_FROM_SQL = `(SELECT MIN(q.valid_from) FROM profiles q WHERE q.airfield_id = a.id AND q.status <> 'withdrawn' AND q.valid_from > ?)`
+const SUPERSESSION_CHANGE_SQL = `(SELECT MIN(IF(s.from_at > ?, s.from_at, s.to_at)) FROM profile_supersessions s WHERE s.profile_id = p.id AND s.to_at > ?)`
+/** The moment a row read with NEXT_FROM_SQL and SUPERSESSION_CHANGE_SQL may read differently with nothing written. */
+const rowChangeMs = (r: Row, now: Date) => nextChangeMs(now, r.p_valid_to, r.next_from, r.supersession_change)
+
+// The row a briefing is made from (airfield, profile, stamp), kept per airfield, version asked and time asked while
+// the airfield's counters stand; the reader's receipt is read every time.
+const keptBriefingRows = new KeptAnswers<Row>(4000)
+
+async function briefingRow(upper: string, userId: number, opts: { at?: Date, profileId?: number }, now: Date, at: Date): Promise<Row | undefined> {
+  const key = `${upper}|${opts.profileId ?? ''}|${opts.at?.toISOString() ?? 'now'}`
+  if (keptBriefingRows.has(key)) {
+    const profileId = keptBriefingRows.peekValue(key)?.p_id ?? null
+    const [checks] = await usePool().query(
+      `SELECT ${versionOfSql('a.id')} AS v, ${ORG_VERSION_SQL} AS org, r.id AS r_id, r.read_at AS r_read_at
+       FROM airfields a LEFT JOIN briefing_receipts r ON r.user_id = ? AND r.profile_id = ? WHERE a.code = ?`,
+      [userId, profileId, upper],
+    ) as [Row[], unknown]
+    const check = checks[0]
+    const kept = check ? keptBriefingRows.get(key, `${check.v}|${check.org}`, now) : undefined
+    if (kept) return { ...kept, r_id: check!.r_id, r_read_at: check!.r_read_at }
+  }
+  const profileExpr = opts.profileId != null ? `(SELECT q.id FROM profiles q WHERE q.id = ? AND q.airfield_id = a.id)` : IN_FORCE_SQL
+  const profileArgs = opts.profileId != null ? [opts.profileId] : [at, at, at]
+  const [rows] = await usePool().query(
+    `SELECT ${versionOfSql('a.id')} AS v, ${ORG_VERSION_SQL} AS org, ${AIRFIELD_COLUMNS}, ${PROFILE_COLUMNS},
+       ${NEXT_FROM_SQL} AS next_from, ${SUPERSESSION_CHANGE_SQL} AS supersession_change,
+       r.id AS r_id, r.read_at AS r_read_at, ${STAMP_ONE_SQL} AS stamp
+     FROM airfields a
+     LEFT JOIN profiles p ON p.id = ${profileExpr}
+     LEFT JOIN briefing_receipts r ON r.user_id = ? AND r.profile_id = p.id
+     WHERE a.code = ?`,
+    [at, at, now, now, now, now, now, ...profileArgs, userId, upper],
+  ) as [Row[], unknown]
+  const row = rows[0]
+  if (row) keptBriefingRows.set(key, row, `${row.v}|${row.org}`, rowChangeMs(row, now), 3000)
+  return row
+}
+
 /**
  * The briefing answer of GET /api/airfields/{code}/briefing as JSON text with its ETag, for one reader.
  * `at` defaults to now; `profileId` picks a version of this airfield.
@@ -285,17 +327,7 @@ async function readBriefingNow(code: string, userId: number, opts: { at?: Date, 
   const at = opts.at ?? now
   const precision = opts.precision ?? 'trade'
   const upper = code.toUpperCase()
-  const profileExpr = opts.profileId != null ? `(SELECT q.id FROM profiles q WHERE q.id = ? AND q.airfield_id = a.id)` : IN_FORCE_SQL
-  const profileArgs = opts.profileId != null ? [opts.profileId] : [at, at, at]
-  const [rows] = await usePool().query(
-    `SELECT ${AIRFIELD_COLUMNS}, ${PROFILE_COLUMNS}, r.id AS r_id, r.read_at AS r_read_at, ${STAMP_ONE_SQL} AS stamp
-     FROM airfields a
-     LEFT JOIN profiles p ON p.id = ${profileExpr}
-     LEFT JOIN briefing_receipts r ON r.user_id = ? AND r.profile_id = p.id
-     WHERE a.code = ?`,
-    [at, at, now, now, ...profileArgs, userId, upper],
-  ) as [Row[], unknown]
-  const row = rows[0]
+  const row = await briefingRow(upper, userId, opts, now, at)
   if (!row) return { kind: 'no-airfield', code: upper }
   const airfield = airfieldOf(row)
   if (row.p_id == null) {
@@ -321,39 +353,58 @@ async function readBriefingNow(code: string, userId: number, opts: { at?: Date, 
   return { kind: 'briefing', body, etag, profileId: profile.id, memoKey }
 }
 
-/**
- * One line per airfield of a page of the home list (the reader's followed airfields first, then by code): its
- * profile in force now and what it crosses. One query for the page, whatever the number of airfields; analyses
- * not yet kept are computed in a fixed number more.
- */
-export async function readBriefingSummaries(o: AirfieldPageOptions) {
-  const now = new Date()
+type SummaryRow = { airfield: Airfield, profile: ProfileHead | null, key: string, runwayEnds: string[], followed: boolean }
+const keptSummaries = new KeptAnswers<{ rows: SummaryRow[], total: number }>(2000)
+
+/** The rows of one page of the home list: kept while the page's counters stand and nothing time-bound ran out. */
+async function readSummaryRows(o: AirfieldPageOptions, now: Date) {
+  const key = pageKeyOf(o)
+  if (keptSummaries.has(key)) {
+    const kept = keptSummaries.get(key, await pageCounters(o), now)
+    if (kept) return kept
+  }
   const page = airfieldPageSql(o)
   const [rows] = await usePool().query(
-    `SELECT pg.total, pg.followed, ${AIRFIELD_COLUMNS}, ${PROFILE_COLUMNS}, ${STAMP_ONE_SQL} AS stamp,
-       (SELECT GROUP_CONCAT(e.designator ORDER BY e.designator SEPARATOR ',') FROM runway_ends e WHERE e.airfield_id = a.id) AS designators
+    `SELECT pg.total, pg.followed, ${versionOfSql('a.id')} AS v, ${ORG_VERSION_SQL} AS org,
+       ${AIRFIELD_COLUMNS}, ${PROFILE_COLUMNS}, ${STAMP_ONE_SQL} AS stamp,
+       (SELECT GROUP_CONCAT(e.designator ORDER BY e.designator SEPARATOR ',') FROM runway_ends e WHERE e.airfield_id = a.id) AS designators,
+       ${NEXT_FROM_SQL} AS next_from, ${SUPERSESSION_CHANGE_SQL} AS supersession_change
      FROM ${page.sql}
      JOIN airfields a ON a.id = pg.id
      LEFT JOIN profiles p ON p.id = ${IN_FORCE_SQL}
      ORDER BY pg.followed DESC, a.code`,
-    [now, now, now, now, ...page.args, now, now, now],
+    [now, now, now, now, now, now, now, ...page.args, now, now, now],
   ) as [Row[], unknown]
-  const items = rows.map((r) => {
+  const summaryRows: SummaryRow[] = rows.map((r) => {
     const airfield = airfieldOf(r)
     const profile = r.p_id == null ? null : profileOf(r, airfield.id)
-    const key = profile ? keyOf(profile.id, r.stamp, 'trade') : ''
-    return { r, airfield, profile, key, entry: profile ? briefingCache.get(key) : undefined }
+    return { airfield, profile, key: profile ? keyOf(profile.id, r.stamp, 'trade') : '', runwayEnds: r.designators ? String(r.designators).split(',') : [], followed: Number(r.followed) === 1 }
   })
+  const total = rows.length ? Number(rows[0]!.total) : o.page > 1 ? await countAirfieldPage(o) : 0
+  const answer = { rows: summaryRows, total }
+  if (rows.length) {
+    const untilMs = Math.min(...rows.map(r => rowChangeMs(r, now)))
+    keptSummaries.set(key, answer, countersOf(rows.map(r => ({ id: r.a_id, v: r.v, followed: r.followed })), rows[0]!.org, rows[0]!.total), untilMs, 2000 + rows.length * 1500)
+  }
+  return answer
+}
+
+/**
+ * One line per airfield of a page of the home list (the reader's followed airfields first, then by code): its
+ * profile in force now and what it crosses. One query for the page, whatever the number of airfields (only the
+ * counters while nothing changed); analyses not yet kept are computed in a fixed number more.
+ */
+export async function readBriefingSummaries(o: AirfieldPageOptions) {
+  const now = new Date()
+  const { rows, total } = await readSummaryRows(o, now)
+  const items = rows.map(row => ({ ...row, entry: row.profile ? briefingCache.get(row.key) : undefined }))
   const missing = items.filter(i => i.profile && !i.entry)
   const computed = await computeMany(missing.map(i => ({ key: i.key, precision: 'trade' as const, profile: i.profile!, airfield: i.airfield })))
-  const airfields = items.map(({ r, airfield, profile, key, entry }) => {
-    const runwayEnds = r.designators ? String(r.designators).split(',') : []
-    const followed = Number(r.followed) === 1
+  const airfields = items.map(({ airfield, profile, key, entry, runwayEnds, followed }) => {
     if (!profile) return { code: airfield.code, name: airfield.name, followed, runwayEnds, profile: null, exceededCount: 0, bestEnd: null }
     const e = entry ?? computed.get(key)!
     return { code: airfield.code, name: airfield.name, followed, runwayEnds, profile: publicProfileOf(profile, now), exceededCount: e.exceededCount, bestEnd: e.bestEnd }
   })
-  const total = rows.length ? Number(rows[0]!.total) : o.page > 1 ? await countAirfieldPage(o) : 0
   return { airfields, total }
 }
 

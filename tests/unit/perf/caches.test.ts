@@ -4,6 +4,7 @@ import { BoundedCache } from '../../../server/domain/briefings/analysis-cache'
 import { displayLevelIndexes, roundFigures, roundTo } from '../../../server/domain/briefings/precision'
 import { sharedRead, sharedReadsWaiting } from '../../../server/utils/shared-read'
 import { acceptsGzip } from '../../../server/utils/json-text'
+import { countersOf, KeptAnswers, nextChangeMs } from '../../../server/domain/airfields/versions'
 
 describe('BoundedCache', () => {
   it('keeps at most its entries and bytes, dropping the least recently used first', () => {
@@ -100,5 +101,30 @@ describe('acceptsGzip', () => {
     expect(acceptsGzip('identity, *;q=0')).toBe(false)
     expect(acceptsGzip('br')).toBe(false)
     expect(acceptsGzip(undefined)).toBe(false)
+  })
+})
+
+describe('kept answers', () => {
+  const now = new Date('2026-12-02T12:00:00Z')
+  it('run out at the earliest instant still to come, and never for instants past or missing', () => {
+    const at = (iso: string) => new Date(iso)
+    expect(nextChangeMs(now, at('2026-12-02T15:00:00Z'), at('2026-12-02T13:30:00Z'), null, undefined))
+      .toBe(Date.parse('2026-12-02T13:30:00Z'))
+    expect(nextChangeMs(now, at('2026-12-02T11:00:00Z'), now)).toBe(Number.POSITIVE_INFINITY)
+  })
+
+  it('are served only at the counters they were read at and before they run out', () => {
+    const kept = new KeptAnswers<string>(10)
+    const counters = countersOf([{ id: 7, v: 3, followed: 1 }, { id: 9, v: 1 }], 2, 2)
+    expect(counters).toBe('2|2|7:1:3,9:0:1')
+    kept.set('page', 'answer', counters, now.getTime() + 60_000, 100)
+    expect(kept.has('page')).toBe(true)
+    expect(kept.get('page', counters, now)).toBe('answer')
+    // One airfield's counter moved, the order changed, or the organisation's limits changed: not served.
+    expect(kept.get('page', countersOf([{ id: 7, v: 4, followed: 1 }, { id: 9, v: 1 }], 2, 2), now)).toBeUndefined()
+    expect(kept.get('page', countersOf([{ id: 9, v: 1 }, { id: 7, v: 3, followed: 1 }], 2, 2), now)).toBeUndefined()
+    expect(kept.get('page', countersOf([{ id: 7, v: 3, followed: 1 }, { id: 9, v: 1 }], 3, 2), now)).toBeUndefined()
+    // Its time-bound content ran out.
+    expect(kept.get('page', counters, new Date(now.getTime() + 60_000))).toBeUndefined()
   })
 })

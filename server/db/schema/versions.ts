@@ -1,0 +1,11 @@
+import { mysqlTable, int, bigint } from 'drizzle-orm/mysql-core'
+
+// A counter per airfield of every change to what its lists and briefings show: its row, runways and ends, profiles and
+// their supersessions, its limit sets and who follows it. Kept by triggers (migrations/0006), so no write path, on
+// any instance or node, can forget it; airfield_id 0 counts the organisation's limits, which apply to every airfield.
+// A reader holding an answer made at version n may serve it again while the counter still says n (and nothing
+// time-bound in it has run out): checking costs one indexed read, not the whole query.
+export const airfieldVersions = mysqlTable('airfield_versions', {
+  airfieldId: int('airfield_id').primaryKey(),
+  version: bigint('version', { mode: 'number' }).notNull().default(0),
+})
