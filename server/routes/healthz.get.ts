@@ -1,4 +1,5 @@
 import { outboxStatus } from '../domain/alerts/outbox-status'
+import { sharedRead } from '../utils/shared-read'
 
 const startedAt = Date.now()
 
@@ -13,7 +14,8 @@ export default defineEventHandler(async (event) => {
     ])
     const latencyMs = Math.round(performance.now() - started)
     // The delivery queue: notices waiting and how long the oldest due one has waited (seconds).
-    const o = await outboxStatus(useDB())
+    // Checks arriving together share one read of it (made after each arrived): a load balancer's polling stays cheap.
+    const o = await sharedRead('healthz-outbox', () => outboxStatus(useDB()))
     const outbox = { backlog: o.backlog, due: o.due, sending: o.sending, retrying: o.retrying, oldestDueAgeS: o.oldestDueAgeS, failed: o.failed }
     return { status: 'ok', app, database: { state: 'up', latencyMs }, outbox }
   }

@@ -2,6 +2,8 @@ import { z } from 'zod'
 import { M_PER_FT } from '../units'
 import { PATH_RANGES } from '../wind/validate'
 import { COORDINATE_EXAMPLES, coordinateOrTyped, type Axis } from './coordinates'
+import { pageSchema, pageSizeSchema } from './input-schemas'
+import { AIRFIELD_PAGE_SIZE } from './page-sizes'
 
 // Airfields and runways: shared by the API and the forms.
 
@@ -134,3 +136,16 @@ export function blanksAsMissing(v: unknown): unknown {
 /** The airfield edit form: every field present (as on create, without the code), checked as the API checks it. */
 export const airfieldEditFormSchema = z.preprocess(blanksAsMissing, z.object(airfieldShape).omit({ code: true }).strict().superRefine(checkAirfield))
 export const runwayFormSchema = z.preprocess(blanksAsMissing, runwaySchema)
+
+/**
+ * The query of the airfield and briefing lists: a search on code or name (q), the page, its size, and (briefing
+ * list) only the airfields the reader follows. Every page costs the same, however many airfields there are.
+ */
+export const airfieldListQuerySchema = z.object({
+  q: z.string().trim().max(60, 'Search must be at most 60 characters').refine(q => ![...q].some(c => c.charCodeAt(0) < 32), 'Search must be plain text, without control characters').optional().default(''),
+  page: pageSchema,
+  pageSize: pageSizeSchema(100, AIRFIELD_PAGE_SIZE),
+  followed: z.enum(['1', '0', 'true', 'false'], { errorMap: () => ({ message: 'followed must be 1 or 0' }) }).optional()
+    .transform(v => v === '1' || v === 'true'),
+})
+export type AirfieldListQuery = z.infer<typeof airfieldListQuerySchema>

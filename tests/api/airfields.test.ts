@@ -25,7 +25,7 @@ describe('airfields and runways', () => {
     expect(again.status).toBe(409)
     expect(again.body.statusMessage).toContain(code)
 
-    const list = await (await signedIn('pilot')).get('/api/airfields')
+    const list = await (await signedIn('pilot')).get(`/api/airfields?q=${code}`)
     expect(list.status).toBe(200)
     expect(list.body.airfields.find((a: { code: string }) => a.code === code)?.profileState.state).toBe('none')
   })

@@ -142,6 +142,21 @@ describe('the cache never serves a stale briefing after an edit on another insta
     expect(after.limits.source.maxCrosswindKt).toBe('airfield')
   })
 
+  it('a limit changed on the second instance shows on the next home list on the first', async () => {
+    const { code, pilot } = await fieldWithProfile()
+    const line = async () => (await pilot.get(`/api/briefings?q=${code}`)).body.airfields.find((a: { code: string }) => a.code === code)
+    const before = await line()
+    expect(before.profile).not.toBeNull()
+    // Surface wind 200° at 12 kt across runway 18/36: crosswind 12·sin 20° = 4.1 kt on both ends (trade formula,
+    // FAA AC 00-54 / common practice), so a 3 kt crosswind limit is crossed on both.
+    const change = await viaSecond.put(`/api/limits/airfields/${code}`, { values: { maxCrosswindKt: 3 }, reason: 'Cache test: a crosswind limit under the wind' })
+    expect(change.status).toBeLessThan(300)
+    const after = await line()
+    expect(after.exceededCount).toBeGreaterThanOrEqual(before.exceededCount + 2)
+    const list = (await pilot.get(`/api/airfields?q=${code}`)).body.airfields
+    expect(list.map((a: { code: string }) => a.code)).toEqual([code])
+  })
+
   it('a profile superseded on the second instance gives way to the new one on the first', async () => {
     const { code, profileId, pilot } = await fieldWithProfile()
     expect((await pilot.get(`/api/airfields/${code}/briefing`)).body.briefing.profile.id).toBe(profileId)

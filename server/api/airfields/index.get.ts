@@ -1,9 +1,11 @@
+import { airfieldListQuerySchema } from '#shared/utils/airfield-schema'
 import { airfieldListJson, type AirfieldListAnswer } from '../../domain/airfields/list-read'
 
-// Every airfield with the profile in force now (or the next one), for the airfield list.
+// One page of the airfields (search on code or name) with the profile in force now (or the next one).
 export default defineApiHandler(async (event) => {
   await requireUser(event)
-  const answer = await airfieldListJson()
+  const query = readQuery(event, airfieldListQuerySchema)
+  const answer = await airfieldListJson({ q: query.q, page: query.page, pageSize: query.pageSize })
   // JSON text shared by the requests that came together (gzip when asked); typed as what it spells for the pages.
-  return jsonText(event, 'airfield-list', answer.text) as unknown as AirfieldListAnswer
+  return jsonText(event, answer.key, answer.text) as unknown as AirfieldListAnswer
 })

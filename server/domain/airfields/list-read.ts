@@ -1,7 +1,7 @@
 /**
- * The airfield list in one query: every airfield with its runway end designators and the profile in force now
- * and the next one (grouped in derived tables, the profiles through their (status, valid to) index), instead
- * of two queries per airfield.
+ * The airfield list one page at a time, in one query: the page's airfields (a search on code or name, in code order)
+ * with their runway end designators and the profile in force now and the next one, each found per airfield through
+ * an index. A page costs the same however many airfields there are; the total comes with it.
  */
 import type { Airfield } from '../../db/schema'
 import { usePool } from '../../utils/db'
@@ -12,29 +12,58 @@ import { airfieldSummary } from './index'
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
 type Row = Record<string, any>
 
+/** Which page of which airfields: `followerId` puts that user's followed airfields first (or only them). */
+export type AirfieldPageOptions = { q: string, page: number, pageSize: number, followerId?: number, onlyFollowed?: boolean }
+
+/** A LIKE pattern that finds the text anywhere, its wildcards taken literally. */
+const containing = (q: string) => `%${q.replace(/[\\%_]/g, '\\$&')}%`
+
+/**
+ * The derived table `pg` (id, total, followed) of one page of airfields, and its placeholders' values. The window
+ * count is taken before the limit: the number of airfields found, for the pager.
+ */
+export function airfieldPageSql(o: AirfieldPageOptions): { sql: string, args: unknown[] } {
+  const follower = o.followerId != null
+  const sql = `(SELECT f.id, COUNT(*) OVER () AS total, ${follower ? '(s.id IS NOT NULL)' : '0'} AS followed
+    FROM airfields f ${follower ? 'LEFT JOIN alert_subscriptions s ON s.airfield_id = f.id AND s.user_id = ?' : ''}
+    WHERE (? = '' OR f.code LIKE ? OR f.name LIKE ?) ${follower && o.onlyFollowed ? 'AND s.id IS NOT NULL' : ''}
+    ORDER BY followed DESC, f.code LIMIT ? OFFSET ?) pg`
+  const like = containing(o.q)
+  return { sql, args: [...(follower ? [o.followerId] : []), o.q, like, like, o.pageSize, (o.page - 1) * o.pageSize] }
+}
+
+/** How many airfields a search finds (when the page asked for lies past the last one, it carries no total). */
+export async function countAirfieldPage(o: AirfieldPageOptions): Promise<number> {
+  const page = airfieldPageSql({ ...o, page: 1, pageSize: 1 })
+  const [rows] = await usePool().query(`SELECT pg.total FROM ${page.sql}`, page.args) as [Row[], unknown]
+  return Number(rows[0]?.total ?? 0)
+}
+
 const brief = (id: number | null, validFrom: Date | null, validTo: Date | null, source: string | null) =>
   id == null ? null : { id, validFrom: validFrom!.toISOString(), validTo: validTo!.toISOString(), source: source! }
 
-// One active profile per airfield among those still valid at `now` (through the (status, valid_to) index), the
-// first in `order`: in force now is the newest filed (supersession by time), next is the earliest to begin.
-const firstValid = (also: string, order: string) => `(SELECT w.* FROM (SELECT q.id, q.airfield_id, q.valid_from, q.valid_to, q.source,
-    ROW_NUMBER() OVER (PARTITION BY q.airfield_id ORDER BY ${order}) AS rn
-    FROM profiles q WHERE q.status = 'active' AND q.valid_to > ? AND ${also}) w WHERE w.rn = 1)`
+// In force now: the newest active one valid now (supersession by time); next: the earliest active one to begin.
+// Each through the (airfield, status) index, for one airfield of the page.
+const CURRENT_ID_SQL = `(SELECT q.id FROM profiles q WHERE q.airfield_id = a.id AND q.status = 'active'
+    AND q.valid_from <= ? AND q.valid_to > ? ORDER BY q.id DESC LIMIT 1)`
+const NEXT_ID_SQL = `(SELECT q.id FROM profiles q WHERE q.airfield_id = a.id AND q.status = 'active'
+    AND q.valid_from > ? ORDER BY q.valid_from ASC, q.id ASC LIMIT 1)`
 
-export async function readAirfieldList(now = new Date()) {
+export async function readAirfieldList(o: AirfieldPageOptions, now = new Date()) {
+  const page = airfieldPageSql(o)
   const [rows] = await usePool().query(
-    `SELECT a.*, es.designators,
+    `SELECT pg.total, a.*,
+       (SELECT GROUP_CONCAT(e.designator ORDER BY e.designator SEPARATOR ',') FROM runway_ends e WHERE e.airfield_id = a.id) AS designators,
        c.id AS c_id, c.valid_from AS c_valid_from, c.valid_to AS c_valid_to, c.source AS c_source,
        n.id AS n_id, n.valid_from AS n_valid_from, n.valid_to AS n_valid_to, n.source AS n_source
-     FROM airfields a
-     LEFT JOIN (SELECT e.airfield_id, GROUP_CONCAT(e.designator ORDER BY e.designator SEPARATOR ',') AS designators
-       FROM runway_ends e GROUP BY e.airfield_id) es ON es.airfield_id = a.id
-     LEFT JOIN ${firstValid('q.valid_from <= ?', 'q.id DESC')} c ON c.airfield_id = a.id
-     LEFT JOIN ${firstValid('q.valid_from > ?', 'q.valid_from ASC, q.id ASC')} n ON n.airfield_id = a.id
-     ORDER BY a.code`,
-    [now, now, now, now],
+     FROM ${page.sql}
+     JOIN airfields a ON a.id = pg.id
+     LEFT JOIN profiles c ON c.id = ${CURRENT_ID_SQL}
+     LEFT JOIN profiles n ON n.id = ${NEXT_ID_SQL}
+     ORDER BY pg.followed DESC, a.code`,
+    [...page.args, now, now, now],
   ) as [Row[], unknown]
-  return rows.map((r) => {
+  const airfields = rows.map((r) => {
     const a: Airfield = {
       id: r.id, code: r.code, name: r.name, latitudeDeg: r.latitude_deg, longitudeDeg: r.longitude_deg, elevationM: r.elevation_m,
       elevationUnit: r.elevation_unit, magVarOverrideDeg: r.mag_var_override_deg, magVarOverrideReason: r.mag_var_override_reason,
@@ -49,18 +78,22 @@ export async function readAirfieldList(now = new Date()) {
       profileState: { state: cur ? 'current' as const : nxt ? 'upcoming' as const : 'none' as const, current: cur, next: nxt },
     }
   })
+  const total = rows.length ? Number(rows[0]!.total) : o.page > 1 ? await countAirfieldPage(o) : 0
+  return { airfields, total }
 }
 
-export type AirfieldListAnswer = { airfields: Awaited<ReturnType<typeof readAirfieldList>>, at: string }
+export type AirfieldListAnswer = { airfields: Awaited<ReturnType<typeof readAirfieldList>>['airfields'], total: number, page: number, pageSize: number, q: string, at: string }
 
 /**
- * GET /api/airfields as JSON text: the same for every reader, so the requests arriving together share one read
- * and one serialisation, made after each of them arrived (server/utils/shared-read.ts).
+ * GET /api/airfields as JSON text: the same for every reader, so the requests arriving together for the same page
+ * share one read and one serialisation, made after each of them arrived (server/utils/shared-read.ts).
  */
-export function airfieldListJson(): Promise<{ text: string }> {
-  return sharedRead('airfield-list', async () => {
+export function airfieldListJson(o: AirfieldPageOptions): Promise<{ text: string, key: string }> {
+  const key = `airfield-list|${o.q}|${o.page}|${o.pageSize}`
+  return sharedRead(key, async () => {
     const now = new Date()
-    const answer: AirfieldListAnswer = { airfields: await readAirfieldList(now), at: `${now.toISOString().slice(0, 19)}Z` }
-    return { text: JSON.stringify(answer) }
+    const { airfields, total } = await readAirfieldList(o, now)
+    const answer: AirfieldListAnswer = { airfields, total, page: o.page, pageSize: o.pageSize, q: o.q, at: `${now.toISOString().slice(0, 19)}Z` }
+    return { text: JSON.stringify(answer), key }
   })
 }

@@ -2,7 +2,7 @@
  * Reading briefings at the cost of a session check: one query finds the airfield, the profile in force (or asked
  * for), the reader's receipt and a stamp of everything the analysis depends on; the analysed, rounded and
  * serialised briefing of that (profile, stamp) comes from the cache, or is computed once and kept.
- * The home list reads every airfield's line in one query the same way.
+ * The home list reads a page of airfields' lines in one query the same way.
  */
 import { createHash } from 'node:crypto'
 import type { Airfield, Profile, RunwayEnd, ThresholdSet } from '../../db/schema'
@@ -17,6 +17,7 @@ import { VEERLINE_CAUTION } from '../../../shared/utils/caution'
 import { BoundedCache } from './analysis-cache'
 import { sharedRead } from '../../utils/shared-read'
 import { displayGridIndexes, displayLevelIndexes, roundFigures } from './precision'
+import { airfieldPageSql, countAirfieldPage, type AirfieldPageOptions } from '../airfields/list-read'
 
 /** Changes whenever the engine, the magnetic model or the shape of the answer changes: part of every key. */
 const CODE_VERSION = 'engine-1;wmm2025;view-2'
@@ -24,23 +25,17 @@ const CODE_VERSION = 'engine-1;wmm2025;view-2'
 const CAUTION_JSON = JSON.stringify(VEERLINE_CAUTION)
 
 // Everything an analysis and its checks read, folded into one digest per airfield (NULLs spelled out so that a
-// value moving between columns still changes it). The profile's own levels never change once filed. The same
-// expressions serve one airfield (correlated) and all of them (grouped), so both give the same digest.
+// value moving between columns still changes it). The profile's own levels never change once filed.
 const ENDS_SIG = `GROUP_CONCAT(CONCAT_WS(',', e.id, e.runway_id, e.designator, e.true_heading_deg) ORDER BY e.id SEPARATOR ';')`
 const LIMITS_SIG = `GROUP_CONCAT(CONCAT_WS(',', t.id, t.scope_key, t.updated_at, IFNULL(t.max_crosswind_kt, '~'),
   IFNULL(t.max_tailwind_kt, '~'), IFNULL(t.max_layer_shear_kt_per_100ft, '~'), IFNULL(t.max_vector_diff_600m_kt, '~'),
   IFNULL(t.max_airspeed_loss_kt, '~'), IFNULL(t.max_f_factor, '~'), IFNULL(t.near_limit_margin_pct, '~')) ORDER BY t.id SEPARATOR ';')`
 const ORG_LIMITS_SQL = `(SELECT ${LIMITS_SIG} FROM threshold_sets t WHERE t.scope_key = 'org')`
-const stampSql = (endsSig: string, fieldLimitsSig: string) => `MD5(CONCAT_WS('|', a.id, a.code, a.name, a.updated_at,
-  a.latitude_deg, a.longitude_deg, a.elevation_m, IFNULL(a.mag_var_override_deg, '~'), IFNULL(a.mag_var_override_reason, '~'),
-  IFNULL(a.path_settings, '~'), IFNULL(${endsSig}, '~'), IFNULL(${ORG_LIMITS_SQL}, '~'), IFNULL(${fieldLimitsSig}, '~')))`
 /** The digest of one airfield's analysis inputs (row `a`): its row, runway ends and limit sets. */
-export const STAMP_ONE_SQL = stampSql(`(SELECT ${ENDS_SIG} FROM runway_ends e WHERE e.airfield_id = a.id)`,
-  `(SELECT ${LIMITS_SIG} FROM threshold_sets t WHERE t.airfield_id = a.id)`)
-const ENDS_BY_AIRFIELD_SQL = `(SELECT e.airfield_id, ${ENDS_SIG} AS sig,
-  GROUP_CONCAT(e.designator ORDER BY e.designator SEPARATOR ',') AS designators FROM runway_ends e GROUP BY e.airfield_id)`
-const LIMITS_BY_AIRFIELD_SQL = `(SELECT t.airfield_id, ${LIMITS_SIG} AS sig FROM threshold_sets t
-  WHERE t.airfield_id IS NOT NULL GROUP BY t.airfield_id)`
+export const STAMP_ONE_SQL = `MD5(CONCAT_WS('|', a.id, a.code, a.name, a.updated_at,
+  a.latitude_deg, a.longitude_deg, a.elevation_m, IFNULL(a.mag_var_override_deg, '~'), IFNULL(a.mag_var_override_reason, '~'),
+  IFNULL(a.path_settings, '~'), IFNULL((SELECT ${ENDS_SIG} FROM runway_ends e WHERE e.airfield_id = a.id), '~'), IFNULL(${ORG_LIMITS_SQL}, '~'),
+  IFNULL((SELECT ${LIMITS_SIG} FROM threshold_sets t WHERE t.airfield_id = a.id), '~')))`
 
 // Supersession by time: the newer profile that took over the moment given (twice, as two placeholders), or NULL.
 const SUPERSEDED_NOW_SQL = `(SELECT s.superseded_by_id FROM profile_supersessions s WHERE s.profile_id = p.id
@@ -59,12 +54,6 @@ const LATEST_BEGUN_SQL = `(SELECT q.id FROM profiles q WHERE q.airfield_id = a.i
 const IN_FORCE_SQL = `COALESCE(
   (SELECT q.id FROM profiles q WHERE q.airfield_id = a.id AND q.status = 'active' AND q.valid_from <= ? AND q.valid_to >= ?
     ORDER BY q.id DESC LIMIT 1), ${LATEST_BEGUN_SQL})`
-// The same for every airfield at once: the valid ones through the (status, valid_to) index, the fallback only
-// where none is valid (COALESCE stops at the first value).
-const VALID_BY_AIRFIELD_SQL = `(SELECT w.id, w.airfield_id FROM (SELECT q.id, q.airfield_id,
-    ROW_NUMBER() OVER (PARTITION BY q.airfield_id ORDER BY q.id DESC) AS rn
-    FROM profiles q WHERE q.status = 'active' AND q.valid_to >= ? AND q.valid_from <= ?) w WHERE w.rn = 1)`
-
 // A raw mysql2 row: its columns are typed where they are read.
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
 type Row = Record<string, any>
@@ -332,18 +321,22 @@ async function readBriefingNow(code: string, userId: number, opts: { at?: Date, 
   return { kind: 'briefing', body, etag, profileId: profile.id, memoKey }
 }
 
-/** One line per airfield for the home list: its profile in force now and what it crosses. A fixed number of queries. */
-export async function readBriefingSummaries() {
+/**
+ * One line per airfield of a page of the home list (the reader's followed airfields first, then by code): its
+ * profile in force now and what it crosses. One query for the page, whatever the number of airfields; analyses
+ * not yet kept are computed in a fixed number more.
+ */
+export async function readBriefingSummaries(o: AirfieldPageOptions) {
   const now = new Date()
+  const page = airfieldPageSql(o)
   const [rows] = await usePool().query(
-    `SELECT ${AIRFIELD_COLUMNS}, ${PROFILE_COLUMNS}, ${stampSql('es.sig', 'ls.sig')} AS stamp, es.designators AS designators
-     FROM airfields a
-     LEFT JOIN ${ENDS_BY_AIRFIELD_SQL} es ON es.airfield_id = a.id
-     LEFT JOIN ${LIMITS_BY_AIRFIELD_SQL} ls ON ls.airfield_id = a.id
-     LEFT JOIN ${VALID_BY_AIRFIELD_SQL} v ON v.airfield_id = a.id
-     LEFT JOIN profiles p ON p.id = COALESCE(v.id, ${LATEST_BEGUN_SQL})
-     ORDER BY a.code`,
-    [now, now, now, now, now, now, now],
+    `SELECT pg.total, pg.followed, ${AIRFIELD_COLUMNS}, ${PROFILE_COLUMNS}, ${STAMP_ONE_SQL} AS stamp,
+       (SELECT GROUP_CONCAT(e.designator ORDER BY e.designator SEPARATOR ',') FROM runway_ends e WHERE e.airfield_id = a.id) AS designators
+     FROM ${page.sql}
+     JOIN airfields a ON a.id = pg.id
+     LEFT JOIN profiles p ON p.id = ${IN_FORCE_SQL}
+     ORDER BY pg.followed DESC, a.code`,
+    [now, now, now, now, ...page.args, now, now, now],
   ) as [Row[], unknown]
   const items = rows.map((r) => {
     const airfield = airfieldOf(r)
@@ -353,20 +346,36 @@ export async function readBriefingSummaries() {
   })
   const missing = items.filter(i => i.profile && !i.entry)
   const computed = await computeMany(missing.map(i => ({ key: i.key, precision: 'trade' as const, profile: i.profile!, airfield: i.airfield })))
-  return items.map(({ r, airfield, profile, key, entry }) => {
+  const airfields = items.map(({ r, airfield, profile, key, entry }) => {
     const runwayEnds = r.designators ? String(r.designators).split(',') : []
-    if (!profile) return { code: airfield.code, name: airfield.name, runwayEnds, profile: null, exceededCount: 0, bestEnd: null }
+    const followed = Number(r.followed) === 1
+    if (!profile) return { code: airfield.code, name: airfield.name, followed, runwayEnds, profile: null, exceededCount: 0, bestEnd: null }
     const e = entry ?? computed.get(key)!
-    return { code: airfield.code, name: airfield.name, runwayEnds, profile: publicProfileOf(profile, now), exceededCount: e.exceededCount, bestEnd: e.bestEnd }
+    return { code: airfield.code, name: airfield.name, followed, runwayEnds, profile: publicProfileOf(profile, now), exceededCount: e.exceededCount, bestEnd: e.bestEnd }
   })
+  const total = rows.length ? Number(rows[0]!.total) : o.page > 1 ? await countAirfieldPage(o) : 0
+  return { airfields, total }
 }
 
-export type BriefingListAnswer = { airfields: Awaited<ReturnType<typeof readBriefingSummaries>>, caution: string }
+export type BriefingListAnswer = {
+  airfields: Awaited<ReturnType<typeof readBriefingSummaries>>['airfields']
+  total: number
+  page: number
+  pageSize: number
+  q: string
+  followedOnly: boolean
+  caution: string
+}
 
-/** GET /api/briefings as JSON text: the same for every reader, one read and serialisation for those arriving together. */
-export function briefingListJson(): Promise<{ text: string }> {
-  return sharedRead('briefing-list', async () => {
-    const answer: BriefingListAnswer = { airfields: await readBriefingSummaries(), caution: VEERLINE_CAUTION }
-    return { text: JSON.stringify(answer) }
+/**
+ * GET /api/briefings as JSON text for one reader (their followed airfields come first): one read and serialisation
+ * for the requests of that reader and page arriving together.
+ */
+export function briefingListJson(o: AirfieldPageOptions & { followerId: number }): Promise<{ text: string, key: string }> {
+  const key = `briefing-list|${o.followerId}|${o.onlyFollowed ? 1 : 0}|${o.q}|${o.page}|${o.pageSize}`
+  return sharedRead(key, async () => {
+    const { airfields, total } = await readBriefingSummaries(o)
+    const answer: BriefingListAnswer = { airfields, total, page: o.page, pageSize: o.pageSize, q: o.q, followedOnly: !!o.onlyFollowed, caution: VEERLINE_CAUTION }
+    return { text: JSON.stringify(answer), key }
   })
 }
