@@ -1,11 +1,13 @@
 // Veerline: Nuxt 4 with the source at the project root (no app/ folder).
 
 /**
- * Components whose code the briefing page loads when they come into view, not up front (see hooks below). The runway
- * card and the read receipt stay up front: a tap on the polar display or on "Mark … read" must work at once.
+ * Components whose code the briefing page loads after its first screen, not up front (see hooks below): the parts
+ * further down load when they come into view (hydrate-on-visible), the runway card and the read receipts once the
+ * browser is idle after the first paint (hydrate-on-idle), so a tap on the polar display or on "Mark … read" works
+ * by the time one scrolls there. All are rendered on the server as usual.
  */
-const LOADED_WHEN_VISIBLE = ['BriefingChange.vue', 'BriefingOtherEnds.vue', 'BriefingShear.vue',
-  'BriefingProfileHeader.vue', 'BriefingConvective.vue', 'TrendChart.vue']
+const LOADED_AFTER_FIRST_SCREEN = ['BriefingChange.vue', 'BriefingOtherEnds.vue', 'BriefingShear.vue',
+  'BriefingProfileHeader.vue', 'BriefingConvective.vue', 'TrendChart.vue', 'BriefingRunwayCard.vue', 'BriefingReceipts.vue']
 export default defineNuxtConfig({
   modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', 'nuxt-auth-utils', 'nuxt-security', '@nuxt/eslint'],
   devtools: { enabled: false },
@@ -48,11 +50,12 @@ export default defineNuxtConfig({
   typescript: { strict: true, typeCheck: false },
   telemetry: false,
   hooks: {
-    // The briefing page's parts below its first screen (Lazy… with hydrate-on-visible in pages/briefings/[code].vue)
-    // are rendered on the server as usual but their code is not preloaded: it loads when the part scrolls into view.
-    // So is a chunk that only such parts import (VueUse's element helpers, the polar geometry).
+    // The briefing page's parts below its first screen (Lazy… with hydrate-on-visible or hydrate-on-idle in
+    // pages/briefings/[code].vue) are rendered on the server as usual but their code is not preloaded: it loads when
+    // the part scrolls into view or the browser is idle. So is a chunk that only such parts import (VueUse's element
+    // helpers, the polar geometry and display).
     'build:manifest'(manifest) {
-      const late = new Set(Object.keys(manifest).filter(k => LOADED_WHEN_VISIBLE.some(f => manifest[k]!.src?.endsWith(f))))
+      const late = new Set(Object.keys(manifest).filter(k => LOADED_AFTER_FIRST_SCREEN.some(f => manifest[k]!.src?.endsWith(f))))
       for (let grew = true; grew;) {
         grew = false
         for (const [key, chunk] of Object.entries(manifest)) {

@@ -10,9 +10,7 @@ export async function useBriefingPage() {
   const router = useRouter()
   const code = computed(() => String(route.params.code).toUpperCase())
   const { user } = useUserSession()
-  const remembered = useCookie<string | null>(`vl-end-${user.value?.id ?? 0}-${code.value}`, {
-    maxAge: 365 * 86400, sameSite: 'lax', default: () => null,
-  })
+  const { remembered, remember } = useRememberedEnd(user.value?.id ?? 0, code.value)
 
   const at = computed(() => (typeof route.query.at === 'string' && route.query.at ? route.query.at : null))
   const asked = computed(() => (typeof route.query.end === 'string' && route.query.end ? route.query.end.toUpperCase() : null))
@@ -47,7 +45,7 @@ export async function useBriefingPage() {
 
   const replaceQuery = (q: LocationQueryRaw) => router.replace({ query: { ...route.query, ...q } })
   function chooseEnd(designator: string) {
-    remembered.value = designator
+    remember(designator)
     return replaceQuery({ end: designator })
   }
   /** `iso` null: now (the default). */
