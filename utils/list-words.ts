@@ -7,5 +7,7 @@ export function listRangeWords(page: number, pageSize: number, shown: number, to
   const count = (n: number) => n.toLocaleString('en-GB')
   if (shown >= total) return `${count(total)} ${total === 1 ? noun : `${noun}s`}`
   const first = (page - 1) * pageSize + 1
-  return `${noun[0]!.toUpperCase()}${noun.slice(1)}s ${count(first)} to ${count(first + shown - 1)} of ${count(total)}`
+  const Noun = `${noun[0]!.toUpperCase()}${noun.slice(1)}`
+  if (shown === 1) return `${Noun} ${count(first)} of ${count(total)}`
+  return `${Noun}s ${count(first)} to ${count(first + shown - 1)} of ${count(total)}`
 }

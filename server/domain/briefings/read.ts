@@ -394,9 +394,11 @@ async function readSummaryRows(o: AirfieldPageOptions, now: Date) {
  * profile in force now and what it crosses. One query for the page, whatever the number of airfields (only the
  * counters while nothing changed); analyses not yet kept are computed in a fixed number more.
  */
-export async function readBriefingSummaries(o: AirfieldPageOptions) {
-  const now = new Date()
-  const { rows, total } = await readSummaryRows(o, now)
+export async function readBriefingSummaries(o: AirfieldPageOptions, now = new Date()) {
+  return summariesOf(await readSummaryRows(o, now), now)
+}
+
+async function summariesOf({ rows, total }: { rows: SummaryRow[], total: number }, now: Date) {
   const items = rows.map(row => ({ ...row, entry: row.profile ? briefingCache.get(row.key) : undefined }))
   const missing = items.filter(i => i.profile && !i.entry)
   const computed = await computeMany(missing.map(i => ({ key: i.key, precision: 'trade' as const, profile: i.profile!, airfield: i.airfield })))
@@ -422,11 +424,25 @@ export type BriefingListAnswer = {
  * GET /api/briefings as JSON text for one reader (their followed airfields come first): one read and serialisation
  * for the requests of that reader and page arriving together.
  */
+// The text of a page of the home list made from the same kept rows within the same second is the same text (ages
+// are whole minutes, as in the briefing's head): made once. Bounded like the other memos.
+const listTexts = new Map<string, { rows: SummaryRow[], second: number, text: string }>()
+const LIST_TEXTS_MAX = 500
+
 export function briefingListJson(o: AirfieldPageOptions & { followerId: number }): Promise<{ text: string, key: string }> {
-  const key = `briefing-list|${o.followerId}|${o.onlyFollowed ? 1 : 0}|${o.q}|${o.page}|${o.pageSize}`
+  const key = `briefing-list|${pageKeyOf(o)}`
   return sharedRead(key, async () => {
-    const { airfields, total } = await readBriefingSummaries(o)
+    const now = new Date()
+    const second = Math.floor(now.getTime() / 1000)
+    const kept = await readSummaryRows(o, now)
+    const memo = listTexts.get(key)
+    if (memo && memo.rows === kept.rows && memo.second === second) return { text: memo.text, key }
+    const { airfields, total } = await summariesOf(kept, now)
     const answer: BriefingListAnswer = { airfields, total, page: o.page, pageSize: o.pageSize, q: o.q, followedOnly: !!o.onlyFollowed, caution: VEERLINE_CAUTION }
-    return { text: JSON.stringify(answer), key }
+    const text = JSON.stringify(answer)
+    listTexts.delete(key)
+    listTexts.set(key, { rows: kept.rows, second, text })
+    while (listTexts.size > LIST_TEXTS_MAX) listTexts.delete(listTexts.keys().next().value as string)
+    return { text, key }
   })
 }
