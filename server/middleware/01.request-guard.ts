@@ -49,7 +49,13 @@ export default defineEventHandler(async (event) => {
     const raw = await readCapped(event.node.req, limit).catch(() => {
       throw createError({ statusCode: 400, statusMessage: 'The request body did not arrive whole; send it again' })
     })
-    if (raw === null) throw tooLarge()
+    if (raw === null) {
+      // Answer once the rest has arrived (at most 5 s): an answer sent while the client is still sending is lost when
+      // the closed socket resets the connection under it.
+      const refusal = tooLarge()
+      await drained(event.node.req, DRAIN_MAX_MS)
+      throw refusal
+    }
     const body = stripBom(raw)
     if (isJsonType(type) && jsonDepth(body.toString('utf8'), JSON_MAX_DEPTH) > JSON_MAX_DEPTH) {
       throw createError({
@@ -93,9 +99,26 @@ function formatBytes(n: number) {
 function drainAndDrop(req: IncomingMessage) {
   req.removeAllListeners('data')
   req.resume()
-  const timer = setTimeout(() => req.socket?.destroy(), 5000)
+  const timer = setTimeout(() => req.socket?.destroy(), DRAIN_MAX_MS)
   timer.unref()
   req.once('end', () => clearTimeout(timer))
+}
+
+const DRAIN_MAX_MS = 5000
+
+/** Resolves when the request has been read to its end, or closed, or after `maxMs`. */
+function drained(req: IncomingMessage, maxMs: number): Promise<void> {
+  if (req.readableEnded || req.destroyed) return Promise.resolve()
+  return new Promise((resolve) => {
+    const timer = setTimeout(resolve, maxMs)
+    timer.unref()
+    const done = () => {
+      clearTimeout(timer)
+      resolve()
+    }
+    req.once('end', done)
+    req.once('close', done)
+  })
 }
 
 /** The whole body, or null as soon as it grows past `limit` (what follows is dropped, not kept). */

@@ -8,6 +8,7 @@ import { defaultSenders, OutboxWorker, workerOptions } from '../domain/alerts/wo
 import { vapidKeys } from '../domain/alerts/push'
 import { closeMail } from '../domain/alerts/mailer'
 import { writeBegun } from '../domain/alerts/give-way'
+import { queuedMark } from '../domain/alerts/queued'
 
 export default defineNitroPlugin((nitroApp) => {
   if (process.env.VEERLINE_OUTBOX_WORKER === '0' || import.meta.prerender) return
@@ -18,10 +19,16 @@ export default defineNitroPlugin((nitroApp) => {
   vapidKeys(db).catch(err => console.error('[veerline] VAPID keys not ready yet:', err?.message))
   const worker = new OutboxWorker(db, defaultSenders(db), workerOptions(instanceId))
   // Write requests to the API go ahead of new sends (give-way.ts): counted from the request until its response closes.
+  // A write that queued notices wakes the worker once it is answered, its transaction committed (queued.ts).
   nitroApp.hooks.hook('request', (event) => {
     const method = event.method
     if (method === 'GET' || method === 'HEAD' || method === 'OPTIONS' || !event.path.startsWith('/api/')) return
-    event.node.res.once('close', writeBegun())
+    const ended = writeBegun()
+    const mark = queuedMark()
+    event.node.res.once('close', () => {
+      ended()
+      if (queuedMark() !== mark) worker.wake()
+    })
   })
   worker.start()
   console.log(`[veerline] outbox worker ${instanceId} started`)

@@ -52,7 +52,7 @@ export function keyHeights(levels: readonly NormalisedLevel[], surface: Normalis
     const heightAglM = unit === 'ft' ? value * M_PER_FT : value
     const w = windAtHeightAglM(levels, heightAglM)
     if (!w) {
-      const why = heightAglM > top ? `the profile stops at ${Math.round(unit === 'ft' ? top / M_PER_FT : top)} ${unit}` : 'below the lowest level'
+      const why = heightAglM > top ? `the profile stops at ${Math.round(unit === 'ft' ? top / M_PER_FT : top).toLocaleString('en-GB')} ${unit}` : 'below the lowest level'
       return empty(label, value, unit, heightAglM, why)
     }
     return row(label, value, unit, heightAglM, w.directionDeg, w.speedKt, null, ends)

@@ -137,7 +137,7 @@ describe('key heights at exact round values', () => {
     expectAt(rows[2], L[2]!, L[3]!) // 304.8 m
     expectAt(rows[3], L[2]!, L[3]!) // 457.2 m
     expect(rows[4].speedKt).toBeNull()
-    expect(rows[4].reason).toBe('the profile stops at 1969 ft') // 600 m / 0.3048 = 1968.5 ft
+    expect(rows[4].reason).toBe('the profile stops at 1,969 ft') // 600 m / 0.3048 = 1968.5 ft
   })
 
   it('metres: SFC, 150, 300, 450, 600 m; 150 and 300 m are the filed levels themselves', async () => {

@@ -237,4 +237,19 @@ describe('outbox under faults', () => {
     const pilot = await signedInAt(a.baseUrl, 'pilot@veerline.example')
     expect((await pilot.get('/api/alerts/inbox/count')).body).not.toHaveProperty('failedAlertNotices')
   }, 60_000)
+  it('an alert filed on an instance goes out once the filing is answered, without waiting for that instance\'s poll', async () => {
+    // Every other worker stopped; this one polls every 10 minutes, so only the wake after the filing can send in time.
+    for (const i of started) await stopInstance(i)
+    const w = await startInstance('out-wake', DB_URL, { VEERLINE_OUTBOX_INTERVAL_MS: '600000' })
+    started.push(w)
+    a = w
+    const f = await fanOut('wake', 3)
+    // Give the start-up claim time to find nothing (the poll then rests for 10 minutes).
+    await new Promise(r => setTimeout(r, 500))
+    const alertId = await file(f.code, w)
+    const rows = await until('the notices to be sent', allSent(alertId, 3), 20_000)
+    expect(rows.every(r => r.sent_by === w.instanceId)).toBe(true)
+    const mails = mailCounts(f.addresses)
+    expect([...mails.values()]).toEqual([1, 1, 1])
+  }, 60_000)
 })

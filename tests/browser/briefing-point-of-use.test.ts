@@ -85,6 +85,29 @@ describe('the answer first', () => {
     })
   }
 
+  it('phone, the most crowded answer: six runway ends, a gusty surface wind, a stale profile and no end within limits, still in the first screen', async () => {
+    // Everything that can stand above the key heights at once: three runways, a gust line, the stale warning (the
+    // chosen time 2 h 30 min after filing, past the 90 min default) and the banner with the verdict's reasons.
+    const code = await fieldWith([{ ...EXCEEDING[0], gustKt: 25 }, ...EXCEEDING.slice(1)], 0, 4)
+    for (const [a, b, heading] of [['04', '22', 40], ['07', '25', 70]] as const) {
+      const rw = await dispatcher.post(`/api/airfields/${code}/runways`, {
+        lengthM: 2000, ends: [{ designator: a, trueHeadingDeg: heading }, { designator: b, trueHeadingDeg: heading + 180 }],
+      })
+      expect(rw.status, JSON.stringify(rw.body)).toBe(201)
+    }
+    const at = new Date(Math.floor(Date.now() / 60_000) * 60_000 + 150 * 60_000).toISOString()
+    const { context, page } = await pilotPage(PHONE)
+    await open(page, `/briefings/${code}?at=${encodeURIComponent(at)}`)
+    expect(await page.locator('[data-test=pickers] [data-end]').count()).toBe(6)
+    expect(await page.locator('[data-test=stale]').isVisible()).toBe(true)
+    expect(await page.locator('[data-test=no-end-banner]').isVisible()).toBe(true)
+    await page.screenshot({ path: join(OUTPUT_DIR, 'briefing-phone-crowded-first-screen.png') })
+    for (const sel of ['[data-test=verdict]', '[data-test=surface-wind]', '[data-test=answer-ffactor]', '[data-test=caution-short]', '[data-test=key-heights]']) {
+      expect(await bottomOf(page, sel), sel).toBeLessThanOrEqual(PHONE.height)
+    }
+    await context.close()
+  })
+
   it('metres chosen: key heights SFC, 150, 300, 450, 600 m and every label in metres', async () => {
     const { context, page } = await pilotPage(DESK)
     await open(page, '/briefings/XCST')

@@ -7,6 +7,7 @@ import { and, eq, inArray, schema, sql } from '../../utils/db'
 import type { DB, Tx } from '../../utils/db'
 import { outboxPriority } from '../../db/schema'
 import { alertTitle, renderAlertEmail, renderAlertPush, type AlertNoticeData } from './messages'
+import { noticesQueued } from './queued'
 
 type NewOutbox = Omit<typeof schema.outbox.$inferInsert, 'deliveryId' | 'priority'>
 
@@ -21,6 +22,7 @@ export async function enqueue(tx: Tx | DB, rows: NewOutbox | NewOutbox[]) {
     // A second enqueue of the same notice (same dedupe key) changes nothing.
     await tx.insert(schema.outbox).values(values).onDuplicateKeyUpdate({ set: { dedupeKey: sql`dedupe_key` } })
   }
+  noticesQueued(list.length)
 }
 
 export async function alertNoticeData(tx: Tx | DB, alertId: number, event: 'raised' | 'cleared', appUrl: string): Promise<AlertNoticeData & { raisedCount: number, airfieldId: number }> {

@@ -86,6 +86,7 @@ export class OutboxWorker {
   private timer: ReturnType<typeof setTimeout> | null = null
   private pending: Outcome[] = []
   private flushing: Promise<void> | null = null
+  private woken = false
   lastError: string | null = null
 
   constructor(private db: DB, private senders: Senders, readonly opts: WorkerOptions) {}
@@ -98,12 +99,28 @@ export class OutboxWorker {
     if (this.stopping) return
     this.timer = setTimeout(() => {
       this.timer = null
+      this.woken = false
       this.loop = this.run().finally(() => {
         this.loop = null
-        this.schedule(this.opts.intervalMs)
+        // Woken while claiming: what was queued meanwhile may have missed that claim, so look again at once.
+        this.schedule(this.woken ? 0 : this.opts.intervalMs)
       })
     }, delayMs)
     this.timer.unref?.()
+  }
+
+  /**
+   * Claims now rather than at the next poll: called once a write that queued notices on this instance has been
+   * answered (its transaction committed), so an alert goes out without waiting for the poll.
+   */
+  wake() {
+    if (this.stopping) return
+    this.woken = true
+    if (this.timer && !this.loop) {
+      clearTimeout(this.timer)
+      this.timer = null
+      this.schedule(0)
+    }
   }
 
   /**
