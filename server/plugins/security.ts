@@ -16,6 +16,13 @@ export default defineNitroPlugin((nitroApp) => {
   // Made now, so the first sign-in with an unknown e-mail costs what every other one does.
   dummyPasswordHash({ hash: hashPassword, verify: verifyPassword }).catch(err => console.error('[veerline] dummy hash:', err?.message))
 
+  // The security rules of a path already worked out are handed to nuxt-security (its request hook reads them from
+  // the request's context; this plugin's hooks run before its own): server/utils/security-rules.ts.
+  nitroApp.hooks.hook('request', (event) => {
+    const rules = keptSecurityRules(event.path)
+    if (rules !== undefined) event.context.security = { ...(event.context.security as object | undefined), rules }
+  })
+
   // HSTS and upgrade-insecure-requests only where Veerline is served over HTTPS (wrong on the plain-HTTP loopback).
   if (isHttpsDeployment()) {
     nitroApp.hooks.hook('nuxt-security:routeRules', (rules) => {

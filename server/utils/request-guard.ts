@@ -99,5 +99,11 @@ export function jsonDepth(text: string, stopAt = Number.POSITIVE_INFINITY): numb
 
 /** Whether the public address (NUXT_PUBLIC_APP_URL) is https: only then are HSTS and upgrade-insecure-requests sent. */
 export function isHttpsDeployment(appUrl = process.env.NUXT_PUBLIC_APP_URL): boolean {
-  return originOf(appUrl)?.startsWith('https:') ?? false
+  if (appUrl === lastAppUrl) return lastHttps
+  lastAppUrl = appUrl
+  lastHttps = originOf(appUrl)?.startsWith('https:') ?? false
+  return lastHttps
 }
+// The last answer, for the address it was for (asked on every response; the address does not change while running).
+let lastAppUrl: string | undefined
+let lastHttps = false

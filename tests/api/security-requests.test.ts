@@ -111,6 +111,21 @@ describe('security headers', () => {
     expect(res.headers.get('cross-origin-embedder-policy')).toBeNull()
   })
 
+  it('asked again (its rules kept per path), a page gets a nonce of its own each time and the same other headers', async () => {
+    const answers = []
+    for (let i = 0; i < 3; i++) {
+      const res = await fetch(new URL('/sign-in?again=' + i, BASE_URL))
+      const csp = res.headers.get('content-security-policy')!
+      const nonce = /'nonce-([^']+)'/.exec(csp)![1]!
+      expect(await res.text()).toContain(`nonce="${nonce}"`)
+      answers.push({ nonce, rest: csp.replace(nonce, ''), frame: res.headers.get('x-frame-options'), powered: res.headers.get('x-powered-by') })
+    }
+    expect(new Set(answers.map(a => a.nonce)).size).toBe(3)
+    // CSP Level 3 §6.1 (common practice): a nonce is fresh per response; the rest of the policy does not change.
+    expect(new Set(answers.map(a => a.rest)).size).toBe(1)
+    expect(answers.every(a => a.frame === 'DENY' && a.powered === null)).toBe(true)
+  })
+
   it('every API answer is no-store, nosniff, unframeable and without X-Powered-By', async () => {
     for (const [c, path] of [[dispatcher, '/api/session'], [dispatcher, '/api/tokens'], [new ApiClient(), '/api/session']] as const) {
       const res = await c.get(path)
