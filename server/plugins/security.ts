@@ -20,7 +20,7 @@ export default defineNitroPlugin((nitroApp) => {
   // the request's context; this plugin's hooks run before its own): server/utils/security-rules.ts.
   nitroApp.hooks.hook('request', (event) => {
     const rules = keptSecurityRules(event.path)
-    if (rules !== undefined) event.context.security = { ...(event.context.security as object | undefined), rules }
+    if (rules !== undefined) event.context.security = { ...event.context.security, rules: rules as NonNullable<typeof event.context.security>['rules'] }
   })
 
   // HSTS and upgrade-insecure-requests only where Veerline is served over HTTPS (wrong on the plain-HTTP loopback).
