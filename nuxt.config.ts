@@ -2,12 +2,14 @@
 
 /**
  * Components whose code the briefing page loads after its first screen, not up front (see hooks below): the parts
- * further down load when they come into view (hydrate-on-visible), the runway card and the read receipts once the
- * browser is idle after the first paint (hydrate-on-idle), so a tap on the polar display or on "Mark … read" works
- * by the time one scrolls there. All are rendered on the server as usual.
+ * further down load when they come into view, the runway card, the offer to acknowledge alerts and the read receipts
+ * once the browser is idle after the first paint (lateHydrated in pages/briefings/[code].vue, utils/late-hydration.ts),
+ * so a tap on the polar display or on "Mark … read" works by the time one scrolls there. All are rendered on the
+ * server as usual.
  */
 const LOADED_AFTER_FIRST_SCREEN = ['BriefingChange.vue', 'BriefingOtherEnds.vue', 'BriefingShear.vue',
-  'BriefingProfileHeader.vue', 'BriefingConvective.vue', 'TrendChart.vue', 'BriefingRunwayCard.vue', 'BriefingReceipts.vue']
+  'BriefingProfileHeader.vue', 'BriefingConvective.vue', 'TrendChart.vue', 'BriefingRunwayCard.vue', 'BriefingReceipts.vue',
+  'BriefingInboxOffer.vue']
 export default defineNuxtConfig({
   modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', 'nuxt-auth-utils', 'nuxt-security', '@nuxt/eslint'],
   devtools: { enabled: false },
@@ -50,10 +52,9 @@ export default defineNuxtConfig({
   typescript: { strict: true, typeCheck: false },
   telemetry: false,
   hooks: {
-    // The briefing page's parts below its first screen (Lazy… with hydrate-on-visible or hydrate-on-idle in
-    // pages/briefings/[code].vue) are rendered on the server as usual but their code is not preloaded: it loads when
-    // the part scrolls into view or the browser is idle. So is a chunk that only such parts import (VueUse's element
-    // helpers, the polar geometry and display).
+    // The briefing page's parts below its first screen (lateHydrated in pages/briefings/[code].vue) are rendered on
+    // the server as usual but their code is not preloaded: it loads when the part scrolls into view or the browser is
+    // idle. So is a chunk that only such parts import (the polar geometry and display).
     'build:manifest'(manifest) {
       const late = new Set(Object.keys(manifest).filter(k => LOADED_AFTER_FIRST_SCREEN.some(f => manifest[k]!.src?.endsWith(f))))
       for (let grew = true; grew;) {
@@ -70,6 +71,23 @@ export default defineNuxtConfig({
         }
       }
       for (const key of late) manifest[key]!.preload = false
+      // The briefing page's own chunk: the late parts import code it shares with them (the preferences store, the
+      // unit helpers), so Rollup names no module for it and the manifest lists it as "_<hash>.js". The server render
+      // preloads by module, and would then not preload the page's code at all (it would load only after the entry
+      // asked for it; it used to come in only as an import of the late parts, which stayed listed). Name it after
+      // the page again.
+      const PAGE = 'pages/briefings/[code].vue'
+      const pageKey = Object.keys(manifest).find(k => !manifest[k]!.src && manifest[k]!.isDynamicEntry
+        && manifest[k]!.dynamicImports?.some(d => late.has(d) && manifest[d]!.src?.endsWith('BriefingRunwayCard.vue')))
+      if (pageKey && !manifest[PAGE]) {
+        manifest[PAGE] = { ...manifest[pageKey]!, src: PAGE }
+        Reflect.deleteProperty(manifest, pageKey)
+        const rename = (keys?: string[]) => keys?.map(k => (k === pageKey ? PAGE : k))
+        for (const chunk of Object.values(manifest)) {
+          chunk.imports = rename(chunk.imports)
+          chunk.dynamicImports = rename(chunk.dynamicImports)
+        }
+      }
     },
     // The API route table for server/middleware/api-methods.ts (405 with Allow for a known path and a method it lacks).
     'nitro:init'(nitro) {

@@ -255,6 +255,64 @@ describe('live: a profile filed on one app instance appears in a page open on th
   })
 })
 
+describe('live: a change that arrives before a part of the page has hydrated', () => {
+  // The runway card's code loads once the browser is idle (utils/late-hydration.ts): here the browser is kept
+  // "busy" (requestIdleCallback holds its callbacks) and the code, once asked for, is held back, so the briefing
+  // changes first. Vue alone would drop the card's server markup meanwhile (tests/component/late-hydration.test.ts).
+  it('the runway card keeps its figures while its code loads, then shows the new ones, with no hydration mismatch', async () => {
+    const code = await fieldWith([{ heightM: 10, directionDeg: 180, speedKt: 5 }, { heightM: 600, directionDeg: 190, speedKt: 10 }])
+    const { context, page } = await pilotPage(DESK)
+    await page.addInitScript(() => {
+      const w = window as unknown as { heldIdle: (() => void)[] }
+      w.heldIdle = []
+      window.requestIdleCallback = (cb) => {
+        w.heldIdle.push(() => cb({ didTimeout: true, timeRemaining: () => 0 }))
+        return w.heldIdle.length
+      }
+      window.cancelIdleCallback = () => {}
+    })
+    const problems: string[] = []
+    page.on('console', (m) => {
+      if (m.type() === 'error' || m.type() === 'warning') problems.push(m.text())
+    })
+    page.on('pageerror', e => problems.push(e.message))
+    let release = () => {}
+    const held = new Promise<void>(r => (release = r))
+    let asked = false
+    await page.route('**/_nuxt/*.js', async (route) => {
+      const response = await route.fetch()
+      const body = await response.text()
+      if (body.includes('__name:"BriefingRunwayCard"')) {
+        asked = true
+        await held
+      }
+      await route.fulfill({ response, body })
+    })
+    // Not open(): the held request keeps the network busy.
+    await page.goto(`/briefings/${code}?end=18`)
+    await page.locator('[data-test=live][data-state=live]').waitFor({ timeout: 10_000 })
+    const card = page.locator('[data-test=runway-card]')
+    const before = await card.textContent()
+    expect(before).toContain('5 kt')
+    expect(asked).toBe(false) // the browser has not been idle yet
+    expect((await dispatcher.post(`/api/airfields/${code}/profiles`, { ...profileBody(0, 3), levels: EXCEEDING })).status).toBe(201)
+    await page.locator('[data-test=updated]').waitFor({ timeout: 10_000 })
+    expect(await page.locator('[data-test=surface-wind]').textContent()).toContain('200°T/5 kt')
+    expect(asked).toBe(true)
+    expect(await card.count()).toBe(1) // still drawn, with the figures it was rendered with
+    expect(await card.textContent()).toBe(before)
+    release()
+    await expect.poll(async () => await card.textContent(), { timeout: 10_000 }).not.toBe(before)
+    await page.evaluate(() => (window as unknown as { heldIdle: (() => void)[] }).heldIdle.forEach(cb => cb()))
+    // The card now follows the new profile (four levels), and its display answers a tap: it has hydrated.
+    expect(await card.locator('[data-test=polar-point]').count()).toBe(EXCEEDING.length)
+    await card.locator('[data-test=polar-point][data-level-index="1"]').click()
+    await expect.poll(() => card.locator('[data-test=polar-readout]').textContent()).toContain('at 40 kt')
+    expect(problems.filter(p => /hydrat|mismatch/i.test(p))).toEqual([])
+    await context.close()
+  })
+})
+
 describe('access and paper', () => {
   for (const [name, viewport] of [['desk', DESK], ['phone', PHONE]] as const) {
     it(`axe-core in the page (${name}): no serious or critical violation, text contrast included`, async () => {
