@@ -47,8 +47,8 @@ async function bottomOf(page: Page, selector: string) {
   return box!.y + box!.height
 }
 
-async function fieldWith(levels: Record<string, unknown>[], hoursFrom = 0, hours = 3) {
-  const { code } = await makeAirfield(dispatcher)
+async function fieldWith(levels: Record<string, unknown>[], hoursFrom = 0, hours = 3, airfield: Record<string, unknown> = {}) {
+  const { code } = await makeAirfield(dispatcher, airfield)
   const res = await dispatcher.post(`/api/airfields/${code}/profiles`, { ...profileBody(hoursFrom, hours), levels })
   expect(res.status, JSON.stringify(res.body)).toBe(201)
   return code
@@ -86,9 +86,9 @@ describe('the answer first', () => {
   }
 
   it('phone, the most crowded answer: six runway ends, a gusty surface wind, a stale profile and no end within limits, still in the first screen', async () => {
-    // Everything that can stand above the key heights at once: three runways, a gust line, the stale warning (the
+    // Everything that can stand above the key heights at once: a long name, three runways, a gust line, the stale warning (the
     // chosen time 2 h 30 min after filing, past the 90 min default) and the banner with the verdict's reasons.
-    const code = await fieldWith([{ ...EXCEEDING[0], gustKt: 25 }, ...EXCEEDING.slice(1)], 0, 4)
+    const code = await fieldWith([{ ...EXCEEDING[0], gustKt: 25 }, ...EXCEEDING.slice(1)], 0, 4, { name: 'Test field with a name too long for one line of a phone' })
     for (const [a, b, heading] of [['04', '22', 40], ['07', '25', 70]] as const) {
       const rw = await dispatcher.post(`/api/airfields/${code}/runways`, {
         lengthM: 2000, ends: [{ designator: a, trueHeadingDeg: heading }, { designator: b, trueHeadingDeg: heading + 180 }],
@@ -104,6 +104,12 @@ describe('the answer first', () => {
     await page.screenshot({ path: join(OUTPUT_DIR, 'briefing-phone-crowded-first-screen.png') })
     for (const sel of ['[data-test=verdict]', '[data-test=surface-wind]', '[data-test=answer-ffactor]', '[data-test=caution-short]', '[data-test=key-heights]']) {
       expect(await bottomOf(page, sel), sel).toBeLessThanOrEqual(PHONE.height)
+    }
+    // The long name gives way on its line: the runway stays in sight and nothing scrolls sideways.
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(PHONE.width)
+    for (const sel of ['[data-test=answer] h1 + span', '[data-test=why]']) {
+      const box = (await page.locator(sel).first().boundingBox())!
+      expect(box.x + box.width, sel).toBeLessThanOrEqual(PHONE.width)
     }
     await context.close()
   })
