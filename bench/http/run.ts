@@ -17,7 +17,9 @@ import { benchCode, growTo, DEEP_LEVELS, SHALLOW_LEVELS } from './scale-seed'
 
 const BASE = process.env.VEERLINE_BENCH_URL ?? 'http://127.0.0.1:3102'
 const BARE = process.env.VEERLINE_BENCH_BARE_URL ?? ''
-const SECONDS = Number(process.env.VEERLINE_BENCH_SECONDS ?? 5)
+const SECONDS = Number(process.env.VEERLINE_BENCH_SECONDS ?? 3)
+// Each phase measures every route this many times over, in turn (the medians count): VEERLINE_BENCH_ROUNDS.
+const ROUNDS = Math.max(1, Number(process.env.VEERLINE_BENCH_ROUNDS ?? 3))
 const CONNECTIONS = Number(process.env.VEERLINE_BENCH_CONNECTIONS ?? 32)
 const OUT_DIR = process.env.VEERLINE_BENCH_OUT ?? '.data/bench'
 const DEEP = benchCode(0) // every profile with 5,000 levels
@@ -49,19 +51,43 @@ async function load(path: string, cookie: string | null, seconds: number) {
   return { reqPerS: r.requests.average, p50Ms: r.latency.p50, p99Ms: r.latency.p99, non2xx: r.non2xx, errors: r.errors + r.timeouts, bytesPerReq }
 }
 
+const median = (xs: number[]) => {
+  const s = [...xs].sort((a, b) => a - b)
+  return s.length % 2 ? s[(s.length - 1) / 2]! : (s[s.length / 2 - 1]! + s[s.length / 2]!) / 2
+}
+
+/**
+ * Every route of a phase in turn, ROUNDS times over (each round with a liveness measurement of its own); a route's
+ * figures are the medians over the rounds, its ratio the median of its ratios to the liveness of the same round. A
+ * shared machine's bursts of other work then move one round, not the answer.
+ */
 async function phase(name: string, cookie: string, routes: [string, string, boolean][]): Promise<Row[]> {
-  const rows: Row[] = []
-  let live = 0
-  for (const [route, path, signed] of routes) {
+  const runs = new Map<string, (Awaited<ReturnType<typeof load>> & { ratio: number })[]>()
+  for (const [, path, signed] of routes) {
     const c = signed ? cookie : null
     const first = await fetch(`${BASE}${path}`, { headers: headersFor(c) })
     if (first.status !== 200) throw new Error(`${path} answered ${first.status}: ${(await first.text()).slice(0, 300)}`)
     await load(path, c, 1) // warm-up, not counted
-    const m = await load(path, c, SECONDS)
-    if (route === 'liveness') live = m.reqPerS
-    const row = { phase: name, route, path, ...m, ratioToLive: live ? m.reqPerS / live : Number.NaN }
+  }
+  for (let round = 0; round < ROUNDS; round++) {
+    let live = 0
+    for (const [route, path, signed] of routes) {
+      const m = await load(path, signed ? cookie : null, SECONDS)
+      if (route === 'liveness') live = m.reqPerS
+      runs.set(route, [...(runs.get(route) ?? []), { ...m, ratio: live ? m.reqPerS / live : Number.NaN }])
+    }
+  }
+  const rows: Row[] = []
+  for (const [route, path] of routes) {
+    const r = runs.get(route)!
+    const row: Row = {
+      phase: name, route, path, reqPerS: median(r.map(x => x.reqPerS)), p50Ms: median(r.map(x => x.p50Ms)), p99Ms: median(r.map(x => x.p99Ms)),
+      non2xx: r.reduce((n, x) => n + x.non2xx, 0), errors: r.reduce((n, x) => n + x.errors, 0), bytesPerReq: median(r.map(x => x.bytesPerReq)),
+      ratioToLive: median(r.map(x => x.ratio)),
+    }
     rows.push(row)
-    console.log(`  ${name.padEnd(13)} ${route.padEnd(22)} ${m.reqPerS.toFixed(0).padStart(7)} req/s  p50 ${String(m.p50Ms).padStart(4)} ms  p99 ${String(m.p99Ms).padStart(5)} ms  x${row.ratioToLive.toFixed(3)}  ${kb(m.bytesPerReq).padStart(9)}/answer${m.non2xx || m.errors ? `  (${m.non2xx} non-2xx, ${m.errors} errors)` : ''}`)
+    console.log(`  ${name.padEnd(13)} ${route.padEnd(22)} ${row.reqPerS.toFixed(0).padStart(7)} req/s  p50 ${String(row.p50Ms).padStart(4)} ms  p99 ${String(row.p99Ms).padStart(5)} ms  x${row.ratioToLive.toFixed(3)}  ${kb(row.bytesPerReq).padStart(9)}/answer`
+      + `  (rounds: ${r.map(x => `${x.reqPerS.toFixed(0)}/${x.p99Ms}`).join(' ')} req/s/p99)${row.non2xx || row.errors ? `  (${row.non2xx} non-2xx, ${row.errors} errors)` : ''}`)
   }
   return rows
 }
@@ -90,7 +116,7 @@ const verdict = (ok: boolean) => (ok ? 'pass' : 'FAIL')
 async function main() {
   const connection = await mysql.createConnection({ uri: process.env.DATABASE_URL!, timezone: 'Z' })
   const db = drizzle(connection, { schema, mode: 'default' })
-  console.log(`[bench:http] ${CONNECTIONS} connections, ${SECONDS} s per route (after 1 s warm-up), Accept-Encoding: ${ACCEPT_ENCODING || '(none)'}, ${cpus().length} cores, load average ${loadavg().map(x => x.toFixed(2)).join(' ')}`)
+  console.log(`[bench:http] ${CONNECTIONS} connections, ${SECONDS} s per route and round, ${ROUNDS} rounds, medians (after 1 s warm-up), Accept-Encoding: ${ACCEPT_ENCODING || '(none)'}, ${cpus().length} cores, load average ${loadavg().map(x => x.toFixed(2)).join(' ')}`)
 
   await growTo(db, 7)
   const cookie = await signIn('pilot@veerline.example', 'veerline-demo')
