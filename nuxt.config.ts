@@ -147,5 +147,8 @@ export default defineNuxtConfig({
       },
     },
   },
+  // The API answers JSON, never a page: no CSP nonce to make for it (its CSP is default-src 'none', set by
+  // server/middleware/01.request-guard.ts).
+  routeRules: { '/api/**': { security: { nonce: false } } },
   tailwindcss: { cssPath: '~/assets/css/tailwind.css', viewer: false },
 })

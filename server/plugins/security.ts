@@ -19,8 +19,13 @@ export default defineNitroPlugin((nitroApp) => {
   // The security rules of a path already worked out are handed to nuxt-security (its request hook reads them from
   // the request's context; this plugin's hooks run before its own): server/utils/security-rules.ts.
   nitroApp.hooks.hook('request', (event) => {
-    const rules = keptSecurityRules(event.path)
-    if (rules !== undefined) event.context.security = { ...event.context.security, rules: rules as NonNullable<typeof event.context.security>['rules'] }
+    const kept = keptSecurityRules(event.path)
+    if (!kept) return
+    type Context = NonNullable<typeof event.context.security>
+    event.context.security = { ...event.context.security, rules: kept.rules as Context['rules'], ...(kept.route === undefined ? {} : { route: kept.route }) }
+  })
+  nitroApp.hooks.hook('beforeResponse', (event) => {
+    keepSecurityRoute(event.path, (event.context.security as { route?: unknown } | undefined)?.route)
   })
 
   // HSTS and upgrade-insecure-requests only where Veerline is served over HTTPS (wrong on the plain-HTTP loopback).
