@@ -36,6 +36,9 @@ export default defineNuxtConfig({
   },
   dir: { app: '.' },
   srcDir: '.',
+  // The API answers JSON, never a page: no CSP nonce to make for it (its CSP is default-src 'none', set by
+  // server/middleware/01.request-guard.ts).
+  routeRules: { '/api/**': { security: { nonce: false } } },
   compatibilityDate: '2026-01-01',
   nitro: {
     // Only the helpers directly in server/utils are auto-imported; the domain modules (server/domain/*) and the
@@ -147,8 +150,5 @@ export default defineNuxtConfig({
       },
     },
   },
-  // The API answers JSON, never a page: no CSP nonce to make for it (its CSP is default-src 'none', set by
-  // server/middleware/01.request-guard.ts).
-  routeRules: { '/api/**': { security: { nonce: false } } },
   tailwindcss: { cssPath: '~/assets/css/tailwind.css', viewer: false },
 })
