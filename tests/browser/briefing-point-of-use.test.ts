@@ -339,6 +339,20 @@ describe('access and paper', () => {
     })
   }
 
+  it('the day\'s trend chart shows the runway end being briefed, before and after its code has loaded', async () => {
+    const { context, page } = await pilotPage(DESK)
+    for (const d of ['04', '22']) {
+      await open(page, `/briefings/XVAL?end=${d}`)
+      const select = page.locator('[data-test=trend] select')
+      // As the server sent it (the chart below the first screen is not hydrated yet).
+      expect(await select.evaluate(el => (el as HTMLSelectElement).value), `end ${d}, as sent`).toBe(d)
+      await page.locator('[data-test=trend]').scrollIntoViewIfNeeded()
+      await expect.poll(() => page.locator('[data-test=trend]').textContent()).toContain(`Runway ${d}: surface crosswind`)
+      expect(await select.evaluate(el => (el as HTMLSelectElement).value), `end ${d}, hydrated`).toBe(d)
+    }
+    await context.close()
+  })
+
   it('phone: the day\'s trend chart fits the width, names every line at its end and keeps its text readable', async () => {
     const { context, page } = await pilotPage(PHONE)
     await open(page, '/briefings/XVAL')
