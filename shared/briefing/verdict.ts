@@ -36,12 +36,15 @@ export interface AirfieldVerdict {
   banner: string | null
 }
 
+/** The banner's headline; a phone shows only this, the ends being listed just below it. */
+export const NO_END_WITHIN_LIMITS = 'No runway end is within limits'
+
 export function airfieldVerdict(designators: readonly string[], checks: readonly Pick<LimitCheck, 'designator' | 'state' | 'message'>[]): AirfieldVerdict {
   const ends = designators.map(d => runwayVerdict(d, checks))
   const none = ends.length > 0 && ends.every(e => !e.withinLimits)
   return {
     ends,
     noEndWithinLimits: none,
-    banner: none ? `No runway end is within limits: every end (${designators.join(', ')}) exceeds at least one limit.` : null,
+    banner: none ? `${NO_END_WITHIN_LIMITS}: every end (${designators.join(', ')}) exceeds at least one limit.` : null,
   }
 }
