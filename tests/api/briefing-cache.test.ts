@@ -1,8 +1,7 @@
 // Briefings from the analysis cache: trade precision at the boundary, thinned display levels, ETag/304, and never
 // a stale briefing after an edit made on another instance.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { ApiClient } from '../support/api'
-import { signedIn } from '../support/api'
+import { ApiClient, DEMO, signedIn } from '../support/api'
 import { closeDb, makeAirfield, profileBody, runSql } from '../support/airfields'
 import { startSecondInstance, type SecondInstance } from '../support/instance'
 
@@ -183,6 +182,54 @@ describe('the cache never serves a stale briefing after an edit on another insta
     const asked = (await pilot.get(`/api/airfields/${code}/briefing?profile=${profileId}`)).body.briefing
     expect(asked.profile.status).toBe('withdrawn')
     expect(asked.profile.withdrawnReason).toBe('Cache test: sensor fault')
+  })
+
+  it('a kept page of either list shows an airfield added, followed or renamed on the second instance', async () => {
+    // Three airfields whose names carry a tag no other airfield has: the searches below find only these and the
+    // one added later; two to a page, so that one of them is always off the first page.
+    const tag = `Kp${Math.random().toString(36).slice(2, 8)}`
+    const dispatcher = await signedIn('dispatcher')
+    const pilot = await signedIn('pilot')
+    const pilotViaSecond = new ApiClient(`http://127.0.0.1:${process.env.VEERLINE_PORT_2}`)
+    await pilotViaSecond.signIn(DEMO.pilot)
+    const codes: string[] = []
+    for (let i = 0; i < 3; i++) codes.push((await makeAirfield(dispatcher, { name: `${tag} field ${i}` })).code)
+    const page = async (path: string, extra = '') => {
+      const res = await pilot.get(`${path}?q=${tag}&pageSize=2${extra}`)
+      expect(res.status, path).toBe(200)
+      return { codes: res.body.airfields.map((a: { code: string }) => a.code) as string[], total: res.body.total as number, first: res.body.airfields[0] }
+    }
+    const lists = ['/api/airfields', '/api/briefings']
+    let all = [...codes].sort()
+    for (const path of lists) {
+      await page(path)
+      expect(await page(path), path).toEqual(expect.objectContaining({ codes: all.slice(0, 2), total: 3 }))
+    }
+    const added = await makeAirfield(viaSecond, { name: `${tag} field 3` })
+    all = [...all, added.code].sort()
+    for (const path of lists) expect(await page(path), path).toEqual(expect.objectContaining({ codes: all.slice(0, 2), total: 4 }))
+    // The last in code order, followed by the pilot through the second instance, comes first on their home list.
+    const last = all[3]!
+    try {
+      expect((await pilotViaSecond.put(`/api/subscriptions/${last}`, { email: false, push: false })).status).toBe(200)
+      const home = await page('/api/briefings')
+      expect(home.codes).toEqual([last, all[0]])
+      expect(home.first.followed).toBe(true)
+      expect(await page('/api/briefings', '&followed=1')).toEqual(expect.objectContaining({ codes: [last], total: 1 }))
+      // The airfield list is the same for every reader: in code order.
+      expect((await page('/api/airfields')).codes).toEqual(all.slice(0, 2))
+      // Renamed on the second instance so that the search no longer finds it: gone from both lists, the count too.
+      expect((await viaSecond.patch(`/api/airfields/${all[0]}`, { name: 'Cache test renamed field' })).status).toBe(200)
+      const left = all.slice(1)
+      expect(await page('/api/airfields')).toEqual(expect.objectContaining({ codes: left.slice(0, 2), total: 3 }))
+      expect(await page('/api/briefings')).toEqual(expect.objectContaining({ codes: [last, left[0]], total: 3 }))
+      // No longer followed (through the second instance): back in code order.
+      expect((await pilotViaSecond.delete(`/api/subscriptions/${last}`)).status).toBeLessThan(300)
+      expect(await page('/api/briefings')).toEqual(expect.objectContaining({ codes: left.slice(0, 2), total: 3 }))
+    }
+    finally {
+      await pilot.delete(`/api/subscriptions/${last}`)
+    }
   })
 })
 

@@ -7,7 +7,7 @@ import type { Airfield } from '../../db/schema'
 import { usePool } from '../../utils/db'
 import { sharedRead } from '../../utils/shared-read'
 import { airfieldSummary } from './index'
-import { countersOf, KeptAnswers, nextChangeMs, ORG_VERSION_SQL, versionOfSql } from './versions'
+import { FOLLOW_VERSION_SQL, KeptAnswers, nextChangeMs, ORG_VERSION_SQL, pageCountersNow, pageCountersOf, SET_VERSION_SQL, versionOfSql } from './versions'
 
 // A raw mysql2 row: its columns are typed where they are read.
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
@@ -33,16 +33,22 @@ export function airfieldPageSql(o: AirfieldPageOptions): { sql: string, args: un
   return { sql, args: [...(follower ? [o.followerId] : []), o.q, like, like, o.pageSize, (o.page - 1) * o.pageSize] }
 }
 
+/** SQL select columns: the counters a page is read at besides its rows' (`setv`, `fv`, `org`); one placeholder, the reader. */
+export const PAGE_VERSIONS_SQL = `${SET_VERSION_SQL} AS setv, ${FOLLOW_VERSION_SQL} AS fv, ${ORG_VERSION_SQL} AS org`
+
+/** The counters of a page read in full: its rows as `{ id, v }` with the first row's `setv`, `fv` and `org`. */
+export function pageCountersOfRead(rows: Row[], idOf: (r: Row) => number): string {
+  const first = rows[0] ?? {}
+  return pageCountersOf({ set: first.setv ?? 0, follow: first.fv ?? 0, org: first.org ?? 0, rows: rows.map(r => ({ id: idOf(r), v: r.v })) })
+}
+
 /**
- * The counters of a page as they stand: which airfields, in which order, at which versions, and the total. Equal to
- * what countersOf gives for the rows of a full read made at the same versions.
+ * A kept page of `kept` for `key`, if nothing it shows changed and nothing time-bound in it ran out: asks only the
+ * counters of the set of airfields, of the reader's follows and of the page's own airfields.
  */
-export async function pageCounters(o: AirfieldPageOptions): Promise<string> {
-  const page = airfieldPageSql(o)
-  const [rows] = await usePool().query(
-    `SELECT pg.id, pg.total, pg.followed, ${versionOfSql('pg.id')} AS v, ${ORG_VERSION_SQL} AS org
-     FROM ${page.sql} ORDER BY pg.followed DESC, pg.code`, page.args) as [Row[], unknown]
-  return countersOf(rows as { id: number, v: number }[], rows[0]?.org ?? 0, rows[0]?.total ?? 0)
+export async function keptPage<V>(kept: KeptAnswers<V>, key: string, o: AirfieldPageOptions, now: Date): Promise<V | undefined> {
+  if (!kept.has(key)) return undefined
+  return kept.get(key, await pageCountersNow(kept.idsOf(key), o.followerId), now)
 }
 
 /** The page key of a kept answer. */
@@ -87,13 +93,11 @@ function lineOf(r: Row) {
 /** One page of the airfield list: kept while its airfields' counters stand and no profile begins or ends. */
 export async function readAirfieldList(o: AirfieldPageOptions, now = new Date()): Promise<AirfieldListPage> {
   const key = pageKeyOf(o)
-  if (keptPages.has(key)) {
-    const kept = keptPages.get(key, await pageCounters(o), now)
-    if (kept) return kept
-  }
+  const kept = await keptPage(keptPages, key, o, now)
+  if (kept) return kept
   const page = airfieldPageSql(o)
   const [rows] = await usePool().query(
-    `SELECT pg.total, pg.followed, ${versionOfSql('a.id')} AS v, ${ORG_VERSION_SQL} AS org, a.*,
+    `SELECT ${PAGE_VERSIONS_SQL}, pg.total, pg.followed, ${versionOfSql('a.id')} AS v, a.*,
        (SELECT GROUP_CONCAT(e.designator ORDER BY e.designator SEPARATOR ',') FROM runway_ends e WHERE e.airfield_id = a.id) AS designators,
        c.id AS c_id, c.valid_from AS c_valid_from, c.valid_to AS c_valid_to, c.source AS c_source,
        n.id AS n_id, n.valid_from AS n_valid_from, n.valid_to AS n_valid_to, n.source AS n_source
@@ -102,14 +106,14 @@ export async function readAirfieldList(o: AirfieldPageOptions, now = new Date())
      LEFT JOIN profiles c ON c.id = ${CURRENT_ID_SQL}
      LEFT JOIN profiles n ON n.id = ${NEXT_ID_SQL}
      ORDER BY pg.followed DESC, a.code`,
-    [...page.args, now, now, now],
+    [o.followerId ?? null, ...page.args, now, now, now],
   ) as [Row[], unknown]
   const total = rows.length ? Number(rows[0]!.total) : o.page > 1 ? await countAirfieldPage(o) : 0
   const answer = { airfields: rows.map(lineOf), total }
   if (rows.length) {
     // The page changes by itself when a profile in force ends or the next one begins.
     const untilMs = Math.min(...rows.map(r => nextChangeMs(now, r.c_valid_to, r.n_valid_from)))
-    keptPages.set(key, answer, countersOf(rows as { id: number, v: number }[], rows[0]!.org, rows[0]!.total), untilMs, 1000 + rows.length * 600)
+    keptPages.set(key, answer, pageCountersOfRead(rows, r => r.id), untilMs, 1000 + rows.length * 600, rows.map(r => Number(r.id)))
   }
   return answer
 }

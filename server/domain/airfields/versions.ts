@@ -4,13 +4,25 @@
  * the moment its time-bound content runs out (a profile's validity ending, the next one beginning, a supersession
  * starting or ending). A later read first asks only the counters (one indexed read per airfield shown): the same
  * counters and time not run out give the kept answer; any change, on any instance or node, gives a new read.
+ *
+ * A page of a list is kept with two more counters: the set of airfields (one added, removed, recoded or renamed) and
+ * the reader's follows. While both stand, the same search finds the same airfields in the same order, so checking the
+ * page asks only for its own airfields' counters (one primary-key read each), however many airfields there are.
  */
 import { BoundedCache } from '../briefings/analysis-cache'
+import { usePool } from '../../utils/db'
 
 /** SQL: the counter of the airfield whose id is in `idColumn` (0 where none was kept yet). */
 export const versionOfSql = (idColumn: string) => `IFNULL((SELECT av.version FROM airfield_versions av WHERE av.airfield_id = ${idColumn}), 0)`
 /** SQL: the counter of the organisation's limits, which every airfield's checks read. */
 export const ORG_VERSION_SQL = 'IFNULL((SELECT av.version FROM airfield_versions av WHERE av.airfield_id = 0), 0)'
+/** SQL: the counter of the set of airfields (migrations/0007). */
+export const SET_VERSION_SQL = 'IFNULL((SELECT av.version FROM airfield_versions av WHERE av.airfield_id = -1), 0)'
+/** SQL: the follow counter of the user whose id is the placeholder's value (0 for none, or one who never followed). */
+export const FOLLOW_VERSION_SQL = 'IFNULL((SELECT fv.version FROM follow_versions fv WHERE fv.user_id = ?), 0)'
+
+const SET_ID = -1
+const ORG_ID = 0
 
 /** The earliest of the given instants still after `now` (ms since the epoch), or Infinity when none is. */
 export function nextChangeMs(now: Date, ...instants: (Date | null | undefined)[]): number {
@@ -22,7 +34,7 @@ export function nextChangeMs(now: Date, ...instants: (Date | null | undefined)[]
   return next
 }
 
-export type Kept<V> = { value: V, versions: string, untilMs: number, bytes: number }
+export type Kept<V> = { value: V, versions: string, untilMs: number, bytes: number, ids: number[] }
 
 /** A bounded store of answers, each with the counters it was read at and when it runs out. */
 export class KeptAnswers<V> {
@@ -36,6 +48,11 @@ export class KeptAnswers<V> {
     return this.cache.peek(key) !== undefined
   }
 
+  /** The airfields a kept answer shows, in its order (to ask only their counters). */
+  idsOf(key: string): number[] {
+    return this.cache.peek(key)?.ids ?? []
+  }
+
   /** The kept answer for `key` whatever its counters (to know what to ask them for). */
   peekValue(key: string): V | undefined {
     return this.cache.peek(key)?.value
@@ -47,8 +64,8 @@ export class KeptAnswers<V> {
     return k && k.versions === versions && now.getTime() < k.untilMs ? k.value : undefined
   }
 
-  set(key: string, value: V, versions: string, untilMs: number, bytes: number) {
-    this.cache.set(key, { value, versions, untilMs, bytes })
+  set(key: string, value: V, versions: string, untilMs: number, bytes: number, ids: number[] = []) {
+    this.cache.set(key, { value, versions, untilMs, bytes, ids })
   }
 
   get hits() { return this.cache.hits }
@@ -56,7 +73,28 @@ export class KeptAnswers<V> {
   clear() { this.cache.clear() }
 }
 
-/** One text for the counters of the rows an answer shows (their order included) and of the organisation's limits. */
-export function countersOf(rows: { id: number, v: number | string, followed?: number | string }[], org: number | string, total: number | string) {
-  return `${total}|${org}|${rows.map(r => `${r.id}:${r.followed ?? 0}:${r.v}`).join(',')}`
+/** The counters a page of a list was read at, in one text: set, reader's follows, organisation, then each row's. */
+export type PageVersions = { set: number | string, follow: number | string, org: number | string, rows: { id: number, v: number | string }[] }
+
+export function pageCountersOf(p: PageVersions): string {
+  return `${p.set}|${p.follow}|${p.org}|${p.rows.map(r => `${r.id}:${r.v}`).join(',')}`
+}
+
+/**
+ * The counters, as they stand, of a kept page that showed the airfields `ids` (in that order) to `followerId`, in one
+ * query of primary-key reads: equal to pageCountersOf of a full read made now exactly when nothing it shows changed.
+ */
+export async function pageCountersNow(ids: number[], followerId: number | undefined): Promise<string> {
+  const [rows] = await usePool().query(
+    `SELECT av.airfield_id AS id, av.version AS v FROM airfield_versions av WHERE av.airfield_id IN (?)
+     UNION ALL SELECT NULL AS id, fv.version AS v FROM follow_versions fv WHERE fv.user_id = ?`,
+    [[SET_ID, ORG_ID, ...ids], followerId ?? null],
+  ) as [{ id: number | null, v: number | string }[], unknown]
+  const v = new Map<number, string>()
+  let follow = '0'
+  for (const r of rows) {
+    if (r.id == null) follow = String(r.v)
+    else v.set(Number(r.id), String(r.v))
+  }
+  return pageCountersOf({ set: v.get(SET_ID) ?? 0, follow, org: v.get(ORG_ID) ?? 0, rows: ids.map(id => ({ id, v: v.get(id) ?? 0 })) })
 }

@@ -17,8 +17,8 @@ import { VEERLINE_CAUTION } from '../../../shared/utils/caution'
 import { BoundedCache } from './analysis-cache'
 import { sharedRead } from '../../utils/shared-read'
 import { displayGridIndexes, displayLevelIndexes, roundFigures } from './precision'
-import { airfieldPageSql, countAirfieldPage, pageCounters, pageKeyOf, type AirfieldPageOptions } from '../airfields/list-read'
-import { countersOf, KeptAnswers, nextChangeMs, ORG_VERSION_SQL, versionOfSql } from '../airfields/versions'
+import { airfieldPageSql, countAirfieldPage, keptPage, PAGE_VERSIONS_SQL, pageCountersOfRead, pageKeyOf, type AirfieldPageOptions } from '../airfields/list-read'
+import { KeptAnswers, nextChangeMs, ORG_VERSION_SQL, versionOfSql } from '../airfields/versions'
 
 /** Changes whenever the engine, the magnetic model or the shape of the answer changes: part of every key. */
 const CODE_VERSION = 'engine-1;wmm2025;view-2'
@@ -359,13 +359,11 @@ const keptSummaries = new KeptAnswers<{ rows: SummaryRow[], total: number }>(200
 /** The rows of one page of the home list: kept while the page's counters stand and nothing time-bound ran out. */
 async function readSummaryRows(o: AirfieldPageOptions, now: Date) {
   const key = pageKeyOf(o)
-  if (keptSummaries.has(key)) {
-    const kept = keptSummaries.get(key, await pageCounters(o), now)
-    if (kept) return kept
-  }
+  const kept = await keptPage(keptSummaries, key, o, now)
+  if (kept) return kept
   const page = airfieldPageSql(o)
   const [rows] = await usePool().query(
-    `SELECT pg.total, pg.followed, ${versionOfSql('a.id')} AS v, ${ORG_VERSION_SQL} AS org,
+    `SELECT ${PAGE_VERSIONS_SQL}, pg.total, pg.followed, ${versionOfSql('a.id')} AS v,
        ${AIRFIELD_COLUMNS}, ${PROFILE_COLUMNS}, ${STAMP_ONE_SQL} AS stamp,
        (SELECT GROUP_CONCAT(e.designator ORDER BY e.designator SEPARATOR ',') FROM runway_ends e WHERE e.airfield_id = a.id) AS designators,
        ${NEXT_FROM_SQL} AS next_from, ${SUPERSESSION_CHANGE_SQL} AS supersession_change
@@ -373,7 +371,7 @@ async function readSummaryRows(o: AirfieldPageOptions, now: Date) {
      JOIN airfields a ON a.id = pg.id
      LEFT JOIN profiles p ON p.id = ${IN_FORCE_SQL}
      ORDER BY pg.followed DESC, a.code`,
-    [now, now, now, now, now, now, now, ...page.args, now, now, now],
+    [o.followerId ?? null, now, now, now, now, now, now, now, ...page.args, now, now, now],
   ) as [Row[], unknown]
   const summaryRows: SummaryRow[] = rows.map((r) => {
     const airfield = airfieldOf(r)
@@ -384,7 +382,7 @@ async function readSummaryRows(o: AirfieldPageOptions, now: Date) {
   const answer = { rows: summaryRows, total }
   if (rows.length) {
     const untilMs = Math.min(...rows.map(r => rowChangeMs(r, now)))
-    keptSummaries.set(key, answer, countersOf(rows.map(r => ({ id: r.a_id, v: r.v, followed: r.followed })), rows[0]!.org, rows[0]!.total), untilMs, 2000 + rows.length * 1500)
+    keptSummaries.set(key, answer, pageCountersOfRead(rows, r => r.a_id), untilMs, 2000 + rows.length * 1500, rows.map(r => Number(r.a_id)))
   }
   return answer
 }

@@ -4,7 +4,7 @@ import { BoundedCache } from '../../../server/domain/briefings/analysis-cache'
 import { displayLevelIndexes, roundFigures, roundTo } from '../../../server/domain/briefings/precision'
 import { sharedRead, sharedReadsWaiting } from '../../../server/utils/shared-read'
 import { acceptsGzip } from '../../../server/utils/json-text'
-import { countersOf, KeptAnswers, nextChangeMs } from '../../../server/domain/airfields/versions'
+import { KeptAnswers, nextChangeMs, pageCountersOf } from '../../../server/domain/airfields/versions'
 
 describe('BoundedCache', () => {
   it('keeps at most its entries and bytes, dropping the least recently used first', () => {
@@ -115,15 +115,22 @@ describe('kept answers', () => {
 
   it('are served only at the counters they were read at and before they run out', () => {
     const kept = new KeptAnswers<string>(10)
-    const counters = countersOf([{ id: 7, v: 3, followed: 1 }, { id: 9, v: 1 }], 2, 2)
-    expect(counters).toBe('2|2|7:1:3,9:0:1')
-    kept.set('page', 'answer', counters, now.getTime() + 60_000, 100)
+    const page = { set: 5, follow: 2, org: 2, rows: [{ id: 7, v: 3 }, { id: 9, v: 1 }] }
+    const counters = pageCountersOf(page)
+    expect(counters).toBe('5|2|2|7:3,9:1')
+    kept.set('page', 'answer', counters, now.getTime() + 60_000, 100, [7, 9])
     expect(kept.has('page')).toBe(true)
+    expect(kept.idsOf('page')).toEqual([7, 9])
     expect(kept.get('page', counters, now)).toBe('answer')
-    // One airfield's counter moved, the order changed, or the organisation's limits changed: not served.
-    expect(kept.get('page', countersOf([{ id: 7, v: 4, followed: 1 }, { id: 9, v: 1 }], 2, 2), now)).toBeUndefined()
-    expect(kept.get('page', countersOf([{ id: 9, v: 1 }, { id: 7, v: 3, followed: 1 }], 2, 2), now)).toBeUndefined()
-    expect(kept.get('page', countersOf([{ id: 7, v: 3, followed: 1 }, { id: 9, v: 1 }], 3, 2), now)).toBeUndefined()
+    // One airfield's counter moved, the order changed, an airfield was added or renamed, the reader's follows or the
+    // organisation's limits changed: not served.
+    expect(kept.get('page', pageCountersOf({ ...page, rows: [{ id: 7, v: 4 }, { id: 9, v: 1 }] }), now)).toBeUndefined()
+    expect(kept.get('page', pageCountersOf({ ...page, rows: [{ id: 9, v: 1 }, { id: 7, v: 3 }] }), now)).toBeUndefined()
+    expect(kept.get('page', pageCountersOf({ ...page, set: 6 }), now)).toBeUndefined()
+    expect(kept.get('page', pageCountersOf({ ...page, follow: 3 }), now)).toBeUndefined()
+    expect(kept.get('page', pageCountersOf({ ...page, org: 3 }), now)).toBeUndefined()
+    // Counters read as text or as numbers are the same counters.
+    expect(kept.get('page', pageCountersOf({ set: '5', follow: '2', org: '2', rows: [{ id: 7, v: '3' }, { id: 9, v: '1' }] }), now)).toBe('answer')
     // Its time-bound content ran out.
     expect(kept.get('page', counters, new Date(now.getTime() + 60_000))).toBeUndefined()
   })
