@@ -52,14 +52,35 @@ export function parseWith<T>(schema: Schema<T>, input: unknown, root: string, su
   throw invalid(issues, invalidMessage(issues, summary))
 }
 
+// The same address asked again gives the same parameters and query: their checked values are kept per schema and
+// raw text (bounded in number and length; refusals are not kept), so a busy route does not parse the same text thousands of times a second.
+// Schemas of paths and queries are pure: the same text always checks the same way. A copy is given each time.
+const CHECKED_MAX = 500
+const CHECKED_RAW_MAX = 256
+const checked = new WeakMap<object, Map<string, unknown>>()
+
+function parseKept<T>(schema: Schema<T>, raw: string, input: () => unknown, root: string, summary: string): T {
+  let kept = checked.get(schema)
+  if (!kept) checked.set(schema, kept = new Map())
+  const hit = kept.get(raw) as T | undefined
+  const value = hit ?? parseWith(schema, input(), root, summary)
+  if (hit === undefined && raw.length <= CHECKED_RAW_MAX) {
+    if (kept.size >= CHECKED_MAX) kept.delete(kept.keys().next().value!)
+    kept.set(raw, value)
+  }
+  return value && typeof value === 'object' ? { ...value } : value
+}
+
 /** The route's path parameters, checked; a bad one is 422 naming the parameter (never a 400 with a raw dump). */
 export function readParams<T>(event: H3Event, schema: Schema<T>): T {
-  return parseWith(schema, getRouterParams(event, { decode: true }), '(path)', 'The address is not valid')
+  const params = event.context.params ?? {}
+  return parseKept(schema, JSON.stringify(params), () => getRouterParams(event, { decode: true }), '(path)', 'The address is not valid')
 }
 
 /** The query string, checked; a bad value is 422 naming the query parameter. */
 export function readQuery<T>(event: H3Event, schema: Schema<T>): T {
-  return parseWith(schema, getQuery(event), '(query)', 'The query is not valid')
+  const q = event.path.indexOf('?')
+  return parseKept(schema, q < 0 ? '' : event.path.slice(q + 1), () => getQuery(event), '(query)', 'The query is not valid')
 }
 
 /** The JSON body, checked; a body that is not JSON, or fails the schema, is 422. */
