@@ -85,10 +85,13 @@ export function pageCountersOf(p: PageVersions): string {
  * query of primary-key reads: equal to pageCountersOf of a full read made now exactly when nothing it shows changed.
  */
 export async function pageCountersNow(ids: number[], followerId: number | undefined): Promise<string> {
-  const [rows] = await usePool().query(
-    `SELECT av.airfield_id AS id, av.version AS v FROM airfield_versions av WHERE av.airfield_id IN (?)
+  // A prepared statement per page size (the same text for every page of that size): parsed and planned once per
+  // connection.
+  const keys = [SET_ID, ORG_ID, ...ids]
+  const [rows] = await usePool().execute(
+    `SELECT av.airfield_id AS id, av.version AS v FROM airfield_versions av WHERE av.airfield_id IN (${keys.map(() => '?').join(',')})
      UNION ALL SELECT NULL AS id, fv.version AS v FROM follow_versions fv WHERE fv.user_id = ?`,
-    [[SET_ID, ORG_ID, ...ids], followerId ?? null],
+    [...keys, followerId ?? null],
   ) as [{ id: number | null, v: number | string }[], unknown]
   const v = new Map<number, string>()
   let follow = '0'

@@ -285,7 +285,8 @@ async function briefingRow(upper: string, userId: number, opts: { at?: Date, pro
   const key = `${upper}|${opts.profileId ?? ''}|${opts.at?.toISOString() ?? 'now'}`
   if (keptBriefingRows.has(key)) {
     const profileId = keptBriefingRows.peekValue(key)?.p_id ?? null
-    const [checks] = await usePool().query(
+    // A prepared statement (the same text every time): the database parses and plans it once per connection.
+    const [checks] = await usePool().execute(
       `SELECT ${versionOfSql('a.id')} AS v, ${ORG_VERSION_SQL} AS org, r.id AS r_id, r.read_at AS r_read_at
        FROM airfields a LEFT JOIN briefing_receipts r ON r.user_id = ? AND r.profile_id = ? WHERE a.code = ?`,
       [userId, profileId, upper],
