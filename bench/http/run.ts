@@ -183,7 +183,7 @@ async function main() {
     }
     else if (!['liveness', 'readiness (DB ping)'].includes(r.route) && !r.route.endsWith('every end')) {
       target = '≥ 0.7x session, p99 ≤ 25 ms'
-      // Each round's req/s over the session route's in the same round, the median of the rounds (as x liveness).
+      // Each run's req/s over the mean of the session runs just before and after it, the median of the rounds.
       ok = r.ratioToSession >= 0.7 && r.p99Ms <= 25
     }
     if (r.non2xx || r.errors) ok = false

@@ -53,8 +53,9 @@ export function parseWith<T>(schema: Schema<T>, input: unknown, root: string, su
 }
 
 // The same address asked again gives the same parameters and query: their checked values are kept per schema and
-// raw text (bounded in number and length; refusals are not kept), so a busy route does not parse the same text thousands of times a second.
-// Schemas of paths and queries are pure: the same text always checks the same way. A copy is given each time.
+// raw text (bounded in number and length; refusals are not kept), so a busy route does not parse the same text
+// thousands of times a second. Schemas of paths and queries are pure: the same text always checks the same way.
+// A shallow copy is handed out each time.
 const CHECKED_MAX = 500
 const CHECKED_RAW_MAX = 256
 const checked = new WeakMap<object, Map<string, unknown>>()
