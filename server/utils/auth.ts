@@ -1,7 +1,7 @@
 import type { H3Event } from 'h3'
 import { can, rolesWith, type Capability } from '#shared/utils/capabilities'
 import type { User } from '../db/schema'
-import { sessionUserOrEnd } from '../domain/accounts/session-store'
+import { sessionUserOrEnd, type ReadStamp } from '../domain/accounts/session-store'
 import { eq, schema, useDB } from './db'
 import type { FilingActor } from '../domain/profiles/filing'
 import { sha256Hex } from '../domain/accounts/api-tokens'
@@ -14,9 +14,18 @@ import { forbidden, unauthorised } from './errors'
  */
 export async function requireUser(event: H3Event): Promise<User> {
   if (event.context.user) return event.context.user
-  const user = await sessionUserOrEnd(event)
+  const { user, stamp } = await sessionUserOrEnd(event)
   event.context.user = user
+  event.context.readStamp = stamp
   return user
+}
+
+/**
+ * The read stamp of this request's session read (server/domain/accounts/session-store.ts), once requireUser has
+ * passed; null otherwise (an API token, say): a kept answer is then checked by its own counters.
+ */
+export function readStampOf(event: H3Event): ReadStamp | null {
+  return event.context.user ? (event.context.readStamp ?? null) : null
 }
 
 /** requireUser, then 403 unless the user's role has `capability` (shared/utils/capabilities.ts). */
@@ -59,5 +68,6 @@ export async function requireFiler(event: H3Event): Promise<FilingActor> {
 declare module 'h3' {
   interface H3EventContext {
     user?: User
+    readStamp?: ReadStamp
   }
 }

@@ -9,12 +9,26 @@ export const GZIP_MIN_BYTES = 1024
 const MEMO_MAX = 500
 const compressed = new Map<string, { text: string, body: Buffer }>()
 
+// What each Accept-Encoding text said (a client sends the same one on every request), bounded.
+const gzipVerdicts = new Map<string, boolean>()
+
 /**
  * Whether Accept-Encoding accepts gzip (RFC 9110 §12.5.3): gzip listed with a weight above 0, or else "*" with one;
  * browsers send "gzip, deflate, br, zstd".
  */
 export function acceptsGzip(header: string | undefined): boolean {
   if (!header) return false
+  const known = gzipVerdicts.get(header)
+  if (known !== undefined) return known
+  const verdict = gzipVerdictOf(header)
+  if (header.length <= 256) {
+    if (gzipVerdicts.size >= 64) gzipVerdicts.delete(gzipVerdicts.keys().next().value as string)
+    gzipVerdicts.set(header, verdict)
+  }
+  return verdict
+}
+
+function gzipVerdictOf(header: string): boolean {
   const weights = new Map<string, number>()
   for (const part of header.split(',')) {
     const [name, ...params] = part.split(';').map(x => x.trim().toLowerCase())

@@ -130,6 +130,19 @@ describe('the cache never serves a stale briefing after an edit on another insta
     expect(end(after, '18').surface.headwindKt).toBeCloseTo(12 * Math.cos(25 * Math.PI / 180), 1)
   })
 
+  it('a briefing marked read on the second instance shows as read in the next briefing on the first', async () => {
+    const { code, profileId, pilot } = await fieldWithProfile()
+    // Read twice: the second is answered from what the first kept (confirmed at the session's counters).
+    for (let i = 0; i < 2; i++) expect((await pilot.get(`/api/airfields/${code}/briefing?end=best`)).body.receipt).toBeNull()
+    const pilotThere = await signedIn('pilot', viaSecond.baseUrl)
+    const marked = await pilotThere.post('/api/receipts', { profileId })
+    expect(marked.status).toBe(201)
+    const after = (await pilot.get(`/api/airfields/${code}/briefing?end=best`)).body
+    expect(after.receipt).toMatchObject({ profileId, id: marked.body.receipt.id })
+    // Another reader's receipts are theirs: the dispatcher's briefing still shows none.
+    expect((await (await signedIn('dispatcher')).get(`/api/airfields/${code}/briefing?end=best`)).body.receipt).toBeNull()
+  })
+
   it('a limit changed on the second instance shows in the next briefing on the first', async () => {
     const { code, pilot } = await fieldWithProfile()
     const before = (await pilot.get(`/api/airfields/${code}/briefing`)).body.briefing

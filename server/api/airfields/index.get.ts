@@ -5,7 +5,7 @@ import { airfieldListJson, type AirfieldListAnswer } from '../../domain/airfield
 export default defineApiHandler(async (event) => {
   await requireUser(event)
   const query = readQuery(event, airfieldListQuerySchema)
-  const answer = await airfieldListJson({ q: query.q, page: query.page, pageSize: query.pageSize })
+  const answer = await airfieldListJson({ q: query.q, page: query.page, pageSize: query.pageSize }, readStampOf(event)?.data ?? null)
   // JSON text shared by the requests that came together (gzip when asked); typed as what it spells for the pages.
   return jsonText(event, answer.key, answer.text) as unknown as AirfieldListAnswer
 })

@@ -19,3 +19,18 @@ export const followVersions = mysqlTable('follow_versions', {
   userId: int('user_id').primaryKey(),
   version: bigint('version', { mode: 'number' }).notNull().default(0),
 })
+
+// One counter of every change anywhere that any list or briefing shows: bumped by triggers whenever a row of
+// airfield_versions is (migrations/0008). Read with every session, it tells a route holding an answer confirmed at
+// version n that nothing at all changed since, so that even its airfield's counters need not be asked.
+export const dataVersions = mysqlTable('data_versions', {
+  id: int('id').primaryKey(),
+  version: bigint('version', { mode: 'number' }).notNull().default(0),
+})
+
+// A counter per user of every change to their briefing receipts (kept by triggers on briefing_receipts,
+// migrations/0008), read with every session beside the data counter: a kept briefing shows the reader's receipt.
+export const readerVersions = mysqlTable('reader_versions', {
+  userId: int('user_id').primaryKey(),
+  version: bigint('version', { mode: 'number' }).notNull().default(0),
+})

@@ -2,7 +2,7 @@
 // whether it still holds. One query per request reads the session row and its user together.
 import { createHash, randomBytes } from 'node:crypto'
 import type { H3Event } from 'h3'
-import { and, eq, lt, ne, or, schema, useDB } from '../../utils/db'
+import { and, eq, lt, ne, or, schema, sql, useDB } from '../../utils/db'
 import type { DB, Tx } from '../../utils/db'
 import type { User } from '../../db/schema'
 import { recordAudit } from '../../utils/audit'
@@ -67,10 +67,18 @@ export async function startSession(event: H3Event, user: User, publicUser: Pick<
 }
 
 /**
- * The signed-in user of this request, or a 401 (and a cleared cookie) when the session has ended.
- * One read: the session row joined to its user.
+ * What the session read also says of the data: the data counter (every change any list or briefing shows) and the
+ * reader's own receipt counter (server/db/schema/versions.ts), as texts. Read in the same statement as the session,
+ * so a route holding an answer confirmed at these very counters knows nothing it shows changed since, on any
+ * instance, and needs no query of its own. Nothing of what a route answers is read here: only two counters.
  */
-export async function sessionUserOrEnd(event: H3Event): Promise<User> {
+export type ReadStamp = { data: string, reader: string }
+
+/**
+ * The signed-in user of this request and the read stamp, or a 401 (and a cleared cookie) when the session has ended.
+ * One read: the session row joined to its user, with the two counters.
+ */
+export async function sessionUserOrEnd(event: H3Event): Promise<{ user: User, stamp: ReadStamp }> {
   const sealed = sealedSessionOf(event)
   const primed = sealed !== undefined && primeUnsealed(event, sealed)
   const session = await getUserSession(event) as SessionData
@@ -83,7 +91,12 @@ export async function sessionUserOrEnd(event: H3Event): Promise<User> {
   const db = useDB()
   // Requests of the same session arriving together share one read that starts after all of them arrived
   // (server/utils/shared-read.ts): an ended session or a disabled user is refused on the very next request.
-  const [found] = await sharedRead(`session:${idHash}`, () => db.select({ user: schema.users, session: schema.userSessions })
+  const [found] = await sharedRead(`session:${idHash}`, () => db.select({
+    user: schema.users,
+    session: schema.userSessions,
+    dataVersion: sql<number | string | null>`(SELECT dv.version FROM data_versions dv WHERE dv.id = 1)`,
+    readerVersion: sql<number | string | null>`(SELECT rv.version FROM reader_versions rv WHERE rv.user_id = ${schema.users.id})`,
+  })
     .from(schema.userSessions)
     .innerJoin(schema.users, eq(schema.users.id, schema.userSessions.userId))
     .where(eq(schema.userSessions.idHash, idHash)))
@@ -97,7 +110,7 @@ export async function sessionUserOrEnd(event: H3Event): Promise<User> {
     await db.update(schema.userSessions).set({ lastSeenAt: new Date(now) }).where(eq(schema.userSessions.idHash, idHash))
     await setUserSession(event, { seenAt: new Date(now).toISOString() }, { cookie: { maxAge: verdict.cookieMaxAgeS } })
   }
-  return found!.user
+  return { user: found!.user, stamp: { data: String(found!.dataVersion ?? 0), reader: String(found!.readerVersion ?? 0) } }
 }
 
 /** Ends one session (the row of the cookie's session id); the cookie itself is cleared by the caller. */

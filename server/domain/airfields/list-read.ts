@@ -43,12 +43,17 @@ export function pageCountersOfRead(rows: Row[], idOf: (r: Row) => number): strin
 }
 
 /**
- * A kept page of `kept` for `key`, if nothing it shows changed and nothing time-bound in it ran out: asks only the
+ * A kept page of `kept` for `key`, if nothing it shows changed and nothing time-bound in it ran out: confirmed at the
+ * request's data counter (`dataStamp`, read with its session: no query), or else found standing by asking only the
  * counters of the set of airfields, of the reader's follows and of the page's own airfields.
  */
-export async function keptPage<V>(kept: KeptAnswers<V>, key: string, o: AirfieldPageOptions, now: Date): Promise<V | undefined> {
+export async function keptPage<V>(kept: KeptAnswers<V>, key: string, o: AirfieldPageOptions, now: Date, dataStamp: string | null): Promise<V | undefined> {
   if (!kept.has(key)) return undefined
-  return kept.get(key, await pageCountersNow(kept.idsOf(key), o.followerId), now)
+  const confirmed = kept.confirmed(key, dataStamp, now)
+  if (confirmed) return confirmed
+  const standing = kept.get(key, await pageCountersNow(kept.idsOf(key), o.followerId), now)
+  if (standing) kept.confirm(key, dataStamp)
+  return standing
 }
 
 /** The page key of a kept answer. */
@@ -91,9 +96,9 @@ function lineOf(r: Row) {
 }
 
 /** One page of the airfield list: kept while its airfields' counters stand and no profile begins or ends. */
-export async function readAirfieldList(o: AirfieldPageOptions, now = new Date()): Promise<AirfieldListPage> {
+export async function readAirfieldList(o: AirfieldPageOptions, now = new Date(), dataStamp: string | null = null): Promise<AirfieldListPage> {
   const key = pageKeyOf(o)
-  const kept = await keptPage(keptPages, key, o, now)
+  const kept = await keptPage(keptPages, key, o, now, dataStamp)
   if (kept) return kept
   const page = airfieldPageSql(o)
   const [rows] = await usePool().query(
@@ -113,7 +118,7 @@ export async function readAirfieldList(o: AirfieldPageOptions, now = new Date())
   if (rows.length) {
     // The page changes by itself when a profile in force ends or the next one begins.
     const untilMs = Math.min(...rows.map(r => nextChangeMs(now, r.c_valid_to, r.n_valid_from)))
-    keptPages.set(key, answer, pageCountersOfRead(rows, r => r.id), untilMs, 1000 + rows.length * 600, rows.map(r => Number(r.id)))
+    keptPages.set(key, answer, pageCountersOfRead(rows, r => r.id), untilMs, 1000 + rows.length * 600, rows.map(r => Number(r.id)), dataStamp)
   }
   return answer
 }
@@ -122,13 +127,14 @@ export type AirfieldListAnswer = { airfields: AirfieldListPage['airfields'], tot
 
 /**
  * GET /api/airfields as JSON text: the same for every reader, so the requests arriving together for the same page
- * share one read and one serialisation, made after each of them arrived (server/utils/shared-read.ts).
+ * (and with the same data counter from their session reads) share one read and one serialisation, made after each
+ * of them arrived (server/utils/shared-read.ts). `key` names the text (for its compressed copy).
  */
-export function airfieldListJson(o: AirfieldPageOptions): Promise<{ text: string, key: string }> {
+export function airfieldListJson(o: AirfieldPageOptions, dataStamp: string | null = null): Promise<{ text: string, key: string }> {
   const key = `airfield-list|${o.q}|${o.page}|${o.pageSize}`
-  return sharedRead(key, async () => {
+  return sharedRead(`${key}|${dataStamp ?? ''}`, async () => {
     const now = new Date()
-    const { airfields, total } = await readAirfieldList(o, now)
+    const { airfields, total } = await readAirfieldList(o, now, dataStamp)
     const answer: AirfieldListAnswer = { airfields, total, page: o.page, pageSize: o.pageSize, q: o.q, at: `${now.toISOString().slice(0, 19)}Z` }
     return { text: JSON.stringify(answer), key }
   })

@@ -34,7 +34,12 @@ export function nextChangeMs(now: Date, ...instants: (Date | null | undefined)[]
   return next
 }
 
-export type Kept<V> = { value: V, versions: string, untilMs: number, bytes: number, ids: number[] }
+/**
+ * `confirmedAt`: the read stamp (server/domain/accounts/session-store.ts) of a session read made before the answer
+ * was last read or found still standing. A request whose own session read gave that same stamp knows nothing changed
+ * anywhere since, so the answer stands for it with no query at all.
+ */
+export type Kept<V> = { value: V, versions: string, untilMs: number, bytes: number, ids: number[], confirmedAt: string | null }
 
 /** A bounded store of answers, each with the counters it was read at and when it runs out. */
 export class KeptAnswers<V> {
@@ -64,8 +69,27 @@ export class KeptAnswers<V> {
     return k && k.versions === versions && now.getTime() < k.untilMs ? k.value : undefined
   }
 
-  set(key: string, value: V, versions: string, untilMs: number, bytes: number, ids: number[] = []) {
-    this.cache.set(key, { value, versions, untilMs, bytes, ids })
+  /** The kept answer for `key` if it was confirmed at exactly this read stamp and has not run out at `now`. */
+  confirmed(key: string, stamp: string | null, now: Date): V | undefined {
+    if (stamp === null) return undefined
+    const k = this.cache.get(key)
+    return k && k.confirmedAt === stamp && now.getTime() < k.untilMs ? k.value : undefined
+  }
+
+  /**
+   * Marks the kept answer for `key` as standing at `stamp`, the stamp of a session read made before the check that
+   * found it standing (and its value as now read, when given).
+   */
+  confirm(key: string, stamp: string | null, value?: V) {
+    const k = this.cache.peek(key)
+    if (!k) return
+    k.confirmedAt = stamp
+    if (value !== undefined) k.value = value
+  }
+
+  /** Keeps an answer read at `versions`; `stamp`: the read stamp of a session read made before this read. */
+  set(key: string, value: V, versions: string, untilMs: number, bytes: number, ids: number[] = [], stamp: string | null = null) {
+    this.cache.set(key, { value, versions, untilMs, bytes, ids, confirmedAt: stamp })
   }
 
   get hits() { return this.cache.hits }

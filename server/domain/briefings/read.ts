@@ -19,6 +19,7 @@ import { sharedRead } from '../../utils/shared-read'
 import { displayGridIndexes, displayLevelIndexes, roundFigures } from './precision'
 import { airfieldPageSql, countAirfieldPage, keptPage, PAGE_VERSIONS_SQL, pageCountersOfRead, pageKeyOf, type AirfieldPageOptions } from '../airfields/list-read'
 import { KeptAnswers, nextChangeMs, ORG_VERSION_SQL, versionOfSql } from '../airfields/versions'
+import type { ReadStamp } from '../accounts/session-store'
 
 /** Changes whenever the engine, the magnetic model or the shape of the answer changes: part of every key. */
 const CODE_VERSION = 'engine-1;wmm2025;view-2'
@@ -278,13 +279,25 @@ const SUPERSESSION_CHANGE_SQL = `(SELECT MIN(IF(s.from_at > ?, s.from_at, s.to_a
 const rowChangeMs = (r: Row, now: Date) => nextChangeMs(now, r.p_valid_to, r.next_from, r.supersession_change)
 
 // The row a briefing is made from (airfield, profile, stamp), kept per airfield, version asked and time asked while
-// the airfield's counters stand; the reader's receipt is read every time.
+// the airfield's counters stand, for every reader; each reader's receipt of a profile is kept beside it while their
+// receipt counter stands.
 const keptBriefingRows = new KeptAnswers<Row>(4000)
+type Receipt = { r_id: number | null, r_read_at: Date | null }
+const keptReceipts = new KeptAnswers<Receipt>(20000, 4 * 1024 * 1024)
 
-async function briefingRow(upper: string, userId: number, opts: { at?: Date, profileId?: number }, now: Date, at: Date): Promise<Row | undefined> {
+/**
+ * The row of a briefing with the reader's receipt: kept and confirmed at this request's read stamp (no query), kept
+ * and its counters still standing (one query of primary-key reads, with the receipt), or read in full.
+ */
+async function briefingRow(upper: string, userId: number, opts: BriefingOptions, now: Date, at: Date): Promise<Row | undefined> {
   const key = `${upper}|${opts.profileId ?? ''}|${opts.at?.toISOString() ?? 'now'}`
+  const stamp = opts.stamp ?? null
   if (keptBriefingRows.has(key)) {
     const profileId = keptBriefingRows.peekValue(key)?.p_id ?? null
+    const receiptKey = `${userId}|${profileId}`
+    const row = keptBriefingRows.confirmed(key, stamp?.data ?? null, now)
+    const receipt = row && keptReceipts.confirmed(receiptKey, stamp?.reader ?? null, now)
+    if (row && receipt) return { ...row, ...receipt }
     // A prepared statement (the same text every time): the database parses and plans it once per connection.
     const [checks] = await usePool().execute(
       `SELECT ${versionOfSql('a.id')} AS v, ${ORG_VERSION_SQL} AS org, r.id AS r_id, r.read_at AS r_read_at
@@ -293,7 +306,12 @@ async function briefingRow(upper: string, userId: number, opts: { at?: Date, pro
     ) as [Row[], unknown]
     const check = checks[0]
     const kept = check ? keptBriefingRows.get(key, `${check.v}|${check.org}`, now) : undefined
-    if (kept) return { ...kept, r_id: check!.r_id, r_read_at: check!.r_read_at }
+    if (kept) {
+      const found: Receipt = { r_id: check!.r_id ?? null, r_read_at: check!.r_read_at ?? null }
+      keptBriefingRows.confirm(key, stamp?.data ?? null)
+      keptReceipts.set(receiptKey, found, '', Number.POSITIVE_INFINITY, 100, [], stamp?.reader ?? null)
+      return { ...kept, ...found }
+    }
   }
   const profileExpr = opts.profileId != null ? `(SELECT q.id FROM profiles q WHERE q.id = ? AND q.airfield_id = a.id)` : IN_FORCE_SQL
   const profileArgs = opts.profileId != null ? [opts.profileId] : [at, at, at]
@@ -308,22 +326,34 @@ async function briefingRow(upper: string, userId: number, opts: { at?: Date, pro
     [at, at, now, now, now, now, now, ...profileArgs, userId, upper],
   ) as [Row[], unknown]
   const row = rows[0]
-  if (row) keptBriefingRows.set(key, row, `${row.v}|${row.org}`, rowChangeMs(row, now), 3000)
+  if (row) {
+    keptBriefingRows.set(key, row, `${row.v}|${row.org}`, rowChangeMs(row, now), 3000, [], stamp?.data ?? null)
+    keptReceipts.set(`${userId}|${row.p_id ?? null}`, { r_id: row.r_id ?? null, r_read_at: row.r_read_at ?? null }, '',
+      Number.POSITIVE_INFINITY, 100, [], stamp?.reader ?? null)
+  }
   return row
 }
+
+/**
+ * What a briefing is asked for: `at` defaults to now; `profileId` picks a version of this airfield; `stamp` is the
+ * reader's read stamp (server/utils/auth.ts readStampOf), null when there is none.
+ */
+export type BriefingOptions = { at?: Date, profileId?: number, precision?: Precision, end?: EndFocus, stamp?: ReadStamp | null }
 
 /**
  * The briefing answer of GET /api/airfields/{code}/briefing as JSON text with its ETag, for one reader.
  * `at` defaults to now; `profileId` picks a version of this airfield.
  */
-export function readBriefing(code: string, userId: number, opts: { at?: Date, profileId?: number, precision?: Precision, end?: EndFocus }): Promise<BriefingRead> {
+export function readBriefing(code: string, userId: number, opts: BriefingOptions): Promise<BriefingRead> {
   // The same reader asking the same briefing at the same moment shares one read (server/utils/shared-read.ts), made
-  // after each of them arrived: never staler than a read of its own.
+  // after each of them arrived: never staler than a read of its own. The read stamp is part of the key: a request
+  // is only ever answered by what its own session read vouches for.
   const key = `briefing:${code.toUpperCase()}|${userId}|${opts.profileId ?? ''}|${opts.at?.toISOString() ?? 'now'}|${opts.precision ?? 'trade'}|${opts.end ?? 'all'}`
-  return sharedRead(key, () => readBriefingNow(code, userId, opts, key))
+  const stamp = opts.stamp ? `${opts.stamp.data}:${opts.stamp.reader}` : ''
+  return sharedRead(`${key}|${stamp}`, () => readBriefingNow(code, userId, opts, key))
 }
 
-async function readBriefingNow(code: string, userId: number, opts: { at?: Date, profileId?: number, precision?: Precision, end?: EndFocus }, memoKey: string): Promise<BriefingRead> {
+async function readBriefingNow(code: string, userId: number, opts: BriefingOptions, memoKey: string): Promise<BriefingRead> {
   const now = new Date()
   const at = opts.at ?? now
   const precision = opts.precision ?? 'trade'
@@ -358,9 +388,9 @@ type SummaryRow = { airfield: Airfield, profile: ProfileHead | null, key: string
 const keptSummaries = new KeptAnswers<{ rows: SummaryRow[], total: number }>(2000)
 
 /** The rows of one page of the home list: kept while the page's counters stand and nothing time-bound ran out. */
-async function readSummaryRows(o: AirfieldPageOptions, now: Date) {
+async function readSummaryRows(o: AirfieldPageOptions, now: Date, dataStamp: string | null) {
   const key = pageKeyOf(o)
-  const kept = await keptPage(keptSummaries, key, o, now)
+  const kept = await keptPage(keptSummaries, key, o, now, dataStamp)
   if (kept) return kept
   const page = airfieldPageSql(o)
   const [rows] = await usePool().query(
@@ -383,7 +413,7 @@ async function readSummaryRows(o: AirfieldPageOptions, now: Date) {
   const answer = { rows: summaryRows, total }
   if (rows.length) {
     const untilMs = Math.min(...rows.map(r => rowChangeMs(r, now)))
-    keptSummaries.set(key, answer, pageCountersOfRead(rows, r => r.a_id), untilMs, 2000 + rows.length * 1500, rows.map(r => Number(r.a_id)))
+    keptSummaries.set(key, answer, pageCountersOfRead(rows, r => r.a_id), untilMs, 2000 + rows.length * 1500, rows.map(r => Number(r.a_id)), dataStamp)
   }
   return answer
 }
@@ -394,7 +424,7 @@ async function readSummaryRows(o: AirfieldPageOptions, now: Date) {
  * counters while nothing changed); analyses not yet kept are computed in a fixed number more.
  */
 export async function readBriefingSummaries(o: AirfieldPageOptions, now = new Date()) {
-  return summariesOf(await readSummaryRows(o, now), now)
+  return summariesOf(await readSummaryRows(o, now, null), now)
 }
 
 async function summariesOf({ rows, total }: { rows: SummaryRow[], total: number }, now: Date) {
@@ -428,12 +458,12 @@ export type BriefingListAnswer = {
 const listTexts = new Map<string, { rows: SummaryRow[], second: number, text: string }>()
 const LIST_TEXTS_MAX = 500
 
-export function briefingListJson(o: AirfieldPageOptions & { followerId: number }): Promise<{ text: string, key: string }> {
+export function briefingListJson(o: AirfieldPageOptions & { followerId: number }, dataStamp: string | null = null): Promise<{ text: string, key: string }> {
   const key = `briefing-list|${pageKeyOf(o)}`
-  return sharedRead(key, async () => {
+  return sharedRead(`${key}|${dataStamp ?? ''}`, async () => {
     const now = new Date()
     const second = Math.floor(now.getTime() / 1000)
-    const kept = await readSummaryRows(o, now)
+    const kept = await readSummaryRows(o, now, dataStamp)
     const memo = listTexts.get(key)
     if (memo && memo.rows === kept.rows && memo.second === second) return { text: memo.text, key }
     const { airfields, total } = await summariesOf(kept, now)

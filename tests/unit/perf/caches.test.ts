@@ -134,4 +134,27 @@ describe('kept answers', () => {
     // Its time-bound content ran out.
     expect(kept.get('page', counters, new Date(now.getTime() + 60_000))).toBeUndefined()
   })
+
+  it('stands with no query only at the very read stamp it was confirmed at, and never past its time', () => {
+    const kept = new KeptAnswers<string>(10)
+    const now = new Date('2026-12-03T12:00:00Z')
+    const until = now.getTime() + 60_000
+    kept.set('b', 'read at 41', '7|2', until, 100, [], '41')
+    expect(kept.confirmed('b', '41', now)).toBe('read at 41')
+    // Any change anywhere since moves the data counter: the answer must be checked by its own counters again.
+    expect(kept.confirmed('b', '42', now)).toBeUndefined()
+    // No stamp (no session read vouches for anything): never without a check.
+    expect(kept.confirmed('b', null, now)).toBeUndefined()
+    // Found standing by its counters at a later stamp: confirmed there, with the value as read then.
+    expect(kept.get('b', '7|2', now)).toBe('read at 41')
+    kept.confirm('b', '42', 'checked at 42')
+    expect(kept.confirmed('b', '42', now)).toBe('checked at 42')
+    expect(kept.confirmed('b', '41', now)).toBeUndefined()
+    expect(kept.confirmed('b', '42', new Date(until))).toBeUndefined()
+    // Kept without a stamp: nothing to confirm at.
+    kept.set('c', 'no stamp', '1|1', until, 100)
+    expect(kept.confirmed('c', '42', now)).toBeUndefined()
+    kept.confirm('missing', '42')
+    expect(kept.confirmed('missing', '42', now)).toBeUndefined()
+  })
 })
