@@ -151,6 +151,9 @@ export class Cluster {
       '--innodb-buffer-pool-size=32M', '--innodb-log-file-size=16M', '--performance-schema=OFF', '--max-connections=120',
       '--character-set-server=utf8mb4', '--collation-server=utf8mb4_unicode_ci',
       '--binlog-format=ROW', '--innodb-autoinc-lock-mode=2', '--default-storage-engine=InnoDB',
+      // The migrations create triggers (0006 to 0008: they only count changes) as the app's user, which MariaDB refuses
+      // without SUPER where the binary log is on, as on a Galera node, unless this is set.
+      '--log-bin-trust-function-creators=1',
       // Durability comes from the other nodes holding every committed write set (common Galera practice).
       '--innodb-flush-log-at-trx-commit=2',
       '--wsrep-on=ON', '--wsrep-provider=/usr/lib/galera/libgalera_smm.so', '--wsrep-cluster-name=veerline',

@@ -378,11 +378,24 @@ async function readBriefingNow(code: string, userId: number, opts: BriefingOptio
   const head = JSON.stringify({ at: opts.at ? at.toISOString() : toSecond(now), atChosen: opts.at != null, generatedAt: toSecond(now), profile: p })
   const receipt = row.r_id == null ? null : { id: row.r_id, profileId: profile.id, readAt: (row.r_read_at as Date).toISOString() }
   const receiptJson = JSON.stringify(receipt)
+  // The same kept analysis, head and receipt as the last read of this key: the very same text and tag (so the
+  // compressed copy is found by identity, server/utils/json-text.ts).
+  const last = briefingTexts.get(memoKey)
+  if (last && last.restJson === entry.restJson && last.head === head && last.receiptJson === receiptJson) {
+    return { kind: 'briefing', body: last.body, etag: last.etag, profileId: profile.id, memoKey }
+  }
   const body = `{"briefing":${head.slice(0, -1)},${entry.restJson.slice(1)},"caution":${CAUTION_JSON},"receipt":${receiptJson}}`
   // Same profile version, same inputs, same status and receipt: the same briefing (the times in it aside).
   const etag = weakTag(`${key}|${p.status}|${p.statusNow}|${p.supersededById}|${p.withdrawnReason}|${p.filedMinutesAgo}|${p.stale}|${receiptJson}|${opts.at ? at.toISOString() : ''}`)
+  briefingTexts.delete(memoKey)
+  briefingTexts.set(memoKey, { restJson: entry.restJson, head, receiptJson, body, etag })
+  while (briefingTexts.size > BRIEFING_TEXTS_MAX) briefingTexts.delete(briefingTexts.keys().next().value as string)
   return { kind: 'briefing', body, etag, profileId: profile.id, memoKey }
 }
+
+// The last text made for each briefing key (reader, airfield, version, time, precision, end): bounded.
+const briefingTexts = new Map<string, { restJson: string, head: string, receiptJson: string, body: string, etag: string }>()
+const BRIEFING_TEXTS_MAX = 500
 
 type SummaryRow = { airfield: Airfield, profile: ProfileHead | null, key: string, runwayEnds: string[], followed: boolean }
 const keptSummaries = new KeptAnswers<{ rows: SummaryRow[], total: number }>(2000)
