@@ -1,5 +1,6 @@
 import type { H3Event } from 'h3'
 import { gzipSync, constants } from 'node:zlib'
+import { BoundedCache } from '../domain/briefings/analysis-cache'
 
 /** Answers under this size go as they are: compressing them saves less than it costs. */
 export const GZIP_MIN_BYTES = 1024
@@ -10,7 +11,7 @@ const MEMO_MAX = 500
 const compressed = new Map<string, { text: string, body: Buffer }>()
 
 // What each Accept-Encoding text said (a client sends the same one on every request), bounded.
-const gzipVerdicts = new Map<string, boolean>()
+const gzipVerdicts = new BoundedCache<{ gzip: boolean, bytes: number }>(64, 64 * 256)
 
 /**
  * Whether Accept-Encoding accepts gzip (RFC 9110 §12.5.3): gzip listed with a weight above 0, or else "*" with one;
@@ -18,14 +19,11 @@ const gzipVerdicts = new Map<string, boolean>()
  */
 export function acceptsGzip(header: string | undefined): boolean {
   if (!header) return false
-  const known = gzipVerdicts.get(header)
-  if (known !== undefined) return known
-  const verdict = gzipVerdictOf(header)
-  if (header.length <= 256) {
-    if (gzipVerdicts.size >= 64) gzipVerdicts.delete(gzipVerdicts.keys().next().value as string)
-    gzipVerdicts.set(header, verdict)
-  }
-  return verdict
+  const known = gzipVerdicts.peek(header)
+  if (known) return known.gzip
+  const gzip = gzipVerdictOf(header)
+  if (header.length <= 256) gzipVerdicts.set(header, { gzip, bytes: header.length })
+  return gzip
 }
 
 function gzipVerdictOf(header: string): boolean {

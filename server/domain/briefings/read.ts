@@ -284,6 +284,9 @@ const rowChangeMs = (r: Row, now: Date) => nextChangeMs(now, r.p_valid_to, r.nex
 const keptBriefingRows = new KeptAnswers<Row>(4000)
 type Receipt = { r_id: number | null, r_read_at: Date | null }
 const keptReceipts = new KeptAnswers<Receipt>(20000, 4 * 1024 * 1024)
+/** A reader's receipt as just read: it stands while their receipt counter stays at the stamp's (no time limit). */
+const keepReceipt = (key: string, receipt: Receipt, stamp: ReadStamp | null) =>
+  keptReceipts.set(key, receipt, '', Number.POSITIVE_INFINITY, 100, [], stamp?.reader ?? null)
 
 /**
  * The row of a briefing with the reader's receipt: kept and confirmed at this request's read stamp (no query), kept
@@ -309,7 +312,7 @@ async function briefingRow(upper: string, userId: number, opts: BriefingOptions,
     if (kept) {
       const found: Receipt = { r_id: check!.r_id ?? null, r_read_at: check!.r_read_at ?? null }
       keptBriefingRows.confirm(key, stamp?.data ?? null)
-      keptReceipts.set(receiptKey, found, '', Number.POSITIVE_INFINITY, 100, [], stamp?.reader ?? null)
+      keepReceipt(receiptKey, found, stamp)
       return { ...kept, ...found }
     }
   }
@@ -328,8 +331,7 @@ async function briefingRow(upper: string, userId: number, opts: BriefingOptions,
   const row = rows[0]
   if (row) {
     keptBriefingRows.set(key, row, `${row.v}|${row.org}`, rowChangeMs(row, now), 3000, [], stamp?.data ?? null)
-    keptReceipts.set(`${userId}|${row.p_id ?? null}`, { r_id: row.r_id ?? null, r_read_at: row.r_read_at ?? null }, '',
-      Number.POSITIVE_INFINITY, 100, [], stamp?.reader ?? null)
+    keepReceipt(`${userId}|${row.p_id ?? null}`, { r_id: row.r_id ?? null, r_read_at: row.r_read_at ?? null }, stamp)
   }
   return row
 }
@@ -340,10 +342,7 @@ async function briefingRow(upper: string, userId: number, opts: BriefingOptions,
  */
 export type BriefingOptions = { at?: Date, profileId?: number, precision?: Precision, end?: EndFocus, stamp?: ReadStamp | null }
 
-/**
- * The briefing answer of GET /api/airfields/{code}/briefing as JSON text with its ETag, for one reader.
- * `at` defaults to now; `profileId` picks a version of this airfield.
- */
+/** The briefing answer of GET /api/airfields/{code}/briefing as JSON text with its ETag, for one reader. */
 export function readBriefing(code: string, userId: number, opts: BriefingOptions): Promise<BriefingRead> {
   // The same reader asking the same briefing at the same moment shares one read (server/utils/shared-read.ts), made
   // after each of them arrived: never staler than a read of its own. The read stamp is part of the key: a request
@@ -380,22 +379,20 @@ async function readBriefingNow(code: string, userId: number, opts: BriefingOptio
   const receiptJson = JSON.stringify(receipt)
   // The same kept analysis, head and receipt as the last read of this key: the very same text and tag (so the
   // compressed copy is found by identity, server/utils/json-text.ts).
-  const last = briefingTexts.get(memoKey)
+  const last = briefingTexts.peek(memoKey)
   if (last && last.restJson === entry.restJson && last.head === head && last.receiptJson === receiptJson) {
     return { kind: 'briefing', body: last.body, etag: last.etag, profileId: profile.id, memoKey }
   }
   const body = `{"briefing":${head.slice(0, -1)},${entry.restJson.slice(1)},"caution":${CAUTION_JSON},"receipt":${receiptJson}}`
   // Same profile version, same inputs, same status and receipt: the same briefing (the times in it aside).
   const etag = weakTag(`${key}|${p.status}|${p.statusNow}|${p.supersededById}|${p.withdrawnReason}|${p.filedMinutesAgo}|${p.stale}|${receiptJson}|${opts.at ? at.toISOString() : ''}`)
-  briefingTexts.delete(memoKey)
-  briefingTexts.set(memoKey, { restJson: entry.restJson, head, receiptJson, body, etag })
-  while (briefingTexts.size > BRIEFING_TEXTS_MAX) briefingTexts.delete(briefingTexts.keys().next().value as string)
+  briefingTexts.set(memoKey, { restJson: entry.restJson, head, receiptJson, body, etag, bytes: body.length })
   return { kind: 'briefing', body, etag, profileId: profile.id, memoKey }
 }
 
-// The last text made for each briefing key (reader, airfield, version, time, precision, end): bounded.
-const briefingTexts = new Map<string, { restJson: string, head: string, receiptJson: string, body: string, etag: string }>()
-const BRIEFING_TEXTS_MAX = 500
+// The last text made for each briefing key (reader, airfield, version, time, precision, end), bounded in number and
+// bytes (the texts are mostly the ones the compressed memo holds too).
+const briefingTexts = new BoundedCache<{ restJson: string, head: string, receiptJson: string, body: string, etag: string, bytes: number }>(500, 32 * 1024 * 1024)
 
 type SummaryRow = { airfield: Airfield, profile: ProfileHead | null, key: string, runwayEnds: string[], followed: boolean }
 const keptSummaries = new KeptAnswers<{ rows: SummaryRow[], total: number }>(2000)
